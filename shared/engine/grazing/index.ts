@@ -1,0 +1,2 @@
+// Grazing: field supply, yield worksheets, strip plan, season budget, hazards.
+export {}

@@ -1,0 +1,2 @@
+// Nutrition: energy chain, cattle and sheep requirements, ration balance (LP).
+export {}
