@@ -1,0 +1,5 @@
+// Zod schemas shared by client and server: one per resource.
+export * from './common'
+export * from './roles'
+export * from './auth'
+export * from './operations'

@@ -1,0 +1,19 @@
+// Account API calls.
+import { api } from './client'
+import { meSchema, type Me, type SignInInput, type SignUpInput } from '@shared/schemas/auth'
+import type { UnitSystem } from '@shared/schemas/common'
+
+const me = (p: Promise<unknown>) => p.then((d) => meSchema.parse(d))
+
+export const authApi = {
+  me: (): Promise<Me> => me(api('/auth/me')),
+  signIn: (body: SignInInput): Promise<Me> => me(api('/auth/sign-in', { method: 'POST', body })),
+  signUp: (body: SignUpInput): Promise<Me> => me(api('/auth/sign-up', { method: 'POST', body })),
+  signOut: () => api<void>('/auth/sign-out', { method: 'POST' }),
+  setUnits: (unitSystem: UnitSystem): Promise<Me> => me(api('/auth/me/preferences', { method: 'PATCH', body: { unitSystem } })),
+  changePassword: (currentPassword: string, newPassword: string): Promise<Me> =>
+    me(api('/auth/password', { method: 'POST', body: { currentPassword, newPassword } })),
+  requestReset: (email: string) => api<{ message: string }>('/auth/password-reset', { method: 'POST', body: { email } }),
+  confirmReset: (token: string, password: string): Promise<Me> =>
+    me(api('/auth/password-reset/confirm', { method: 'POST', body: { token, password } })),
+}
