@@ -57,6 +57,11 @@ export function authRouter(config: Config) {
     res.status(204).end()
   })
 
+  // Answers 200 either way, so a signed-out page load logs no failed request.
+  r.get('/session', async (req, res) => {
+    res.json({ user: req.user ? await describeUser(req.user) : null })
+  })
+
   r.get('/me', requireUser, async (req, res) => {
     res.json(await describeUser(req.user!))
   })

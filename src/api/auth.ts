@@ -7,6 +7,7 @@ const me = (p: Promise<unknown>) => p.then((d) => meSchema.parse(d))
 
 export const authApi = {
   me: (): Promise<Me> => me(api('/auth/me')),
+  session: (): Promise<Me | null> => api<{ user: unknown }>('/auth/session').then((d) => (d.user ? meSchema.parse(d.user) : null)),
   signIn: (body: SignInInput): Promise<Me> => me(api('/auth/sign-in', { method: 'POST', body })),
   signUp: (body: SignUpInput): Promise<Me> => me(api('/auth/sign-up', { method: 'POST', body })),
   signOut: () => api<void>('/auth/sign-out', { method: 'POST' }),

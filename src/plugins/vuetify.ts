@@ -13,6 +13,7 @@ export const palette = {
 
 export function createAppVuetify() {
   return createVuetify({
+    display: { mobileBreakpoint: 'md' },
     icons: { defaultSet: 'mdi', aliases, sets: { mdi } },
     theme: {
       defaultTheme: 'field',

@@ -43,9 +43,12 @@ export const useSessionStore = defineStore('session', () => {
 
   async function load() {
     try {
-      accept(await authApi.me())
+      const user = await authApi.session()
+      if (user) accept(user)
+      else me.value = null
     } catch {
       me.value = null
+    } finally {
       loaded.value = true
     }
   }
