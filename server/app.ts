@@ -13,6 +13,8 @@ import { errorHandler, notFoundApi } from './middleware/errors'
 import { authRouter } from './routes/auth'
 import { invitationsRouter, operationScopedRouter, operationsRouter } from './routes/operations'
 import { adminRouter } from './routes/admin'
+import { nutritionRoutes } from './routes/nutrition/index'
+import { grazingRoutes } from './routes/grazing/index'
 
 export function createApp(context: AppContext) {
   const { config, logger } = context
@@ -59,7 +61,7 @@ export function createApp(context: AppContext) {
   })
   app.use('/api/auth', authRouter(config))
   app.use('/api/operations', operationsRouter())
-  app.use('/api/operations/:operationId', operationScopedRouter())
+  app.use('/api/operations/:operationId', operationScopedRouter([...nutritionRoutes, ...grazingRoutes]))
   app.use('/api/invitations', invitationsRouter())
   app.use('/api/admin', adminRouter())
   app.use('/api', notFoundApi)

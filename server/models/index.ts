@@ -1,6 +1,8 @@
 // Sequelize models: registered once per connection by initModels; tables come from migrations, never from sync().
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
 import type { Role } from '../../shared/schemas/roles'
+import { initNutritionModels } from './nutrition'
+import { initGrazingModels } from './grazing'
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>
@@ -130,4 +132,6 @@ export function initModels(sequelize: Sequelize) {
   User.hasMany(Membership, { foreignKey: 'userId', as: 'memberships' })
   Operation.hasMany(Membership, { foreignKey: 'operationId', as: 'memberships' })
   Invitation.belongsTo(Operation, { foreignKey: 'operationId', as: 'operation' })
+  initNutritionModels(sequelize)
+  initGrazingModels(sequelize)
 }

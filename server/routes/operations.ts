@@ -7,11 +7,11 @@ import { parseBody, parseParam } from '../middleware/validate'
 import { inviteAcceptSchema, inviteCreateSchema, memberUpdateSchema, operationCreateSchema, operationUpdateSchema } from '../../shared/schemas/operations'
 import { acceptInvitation, changeRole, createOperation, findInvitation, invite, listMembers, removeMember, revokeInvitation } from '../services/operations'
 import { describeUser } from '../services/accounts'
-import { scoped } from './scoped'
+import { scoped, type ScopedRouter } from './scoped'
 import { AppError } from '../errors'
 
 /** Routes under /api/operations/:operationId — every one behind loadOperationMembership and a permission. */
-export function operationScopedRouter(extra: Array<(r: ReturnType<typeof scoped>) => void> = []) {
+export function operationScopedRouter(extra: Array<(r: ScopedRouter) => void> = []) {
   const router = Router({ mergeParams: true })
   router.use(requireUser, loadOperationMembership)
   const r = scoped(router)

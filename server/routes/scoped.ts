@@ -23,3 +23,5 @@ export function scoped(router: Router) {
     }
   return { get: add('get'), post: add('post'), put: add('put'), patch: add('patch'), delete: add('delete') }
 }
+
+export type ScopedRouter = ReturnType<typeof scoped>

@@ -4,6 +4,8 @@ import type { Sequelize, Transaction } from 'sequelize'
 import { Membership, Operation, User } from '../models/index'
 import type { Role } from '../../shared/schemas/roles'
 import type { Config } from '../config'
+import { seedGrazingDemo } from './demoGrazing'
+import { seedNutritionDemo } from './demoNutrition'
 
 export const DEMO_PASSWORD = 'graze-demo-2026'
 
@@ -54,5 +56,8 @@ export async function seedDemoAccounts(sequelize: Sequelize, config: Config): Pr
 
 export async function seedDemo(sequelize: Sequelize, config: Config) {
   const ids = await seedDemoAccounts(sequelize, config)
+  // Fields first: herds' balances refer to the fields they graze.
+  await seedGrazingDemo(sequelize, ids)
+  await seedNutritionDemo(sequelize, ids)
   return ids
 }

@@ -3,6 +3,8 @@ import { createRouter, createWebHistory, type RouteRecordRaw, type RouterHistory
 import { useSessionStore } from '@/stores/session'
 import { navItems } from '@/navigation'
 import type { Permission } from '@shared/schemas/roles'
+import { nutritionPages } from './nutritionPages'
+import { grazingPages } from './grazingPages'
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -13,7 +15,9 @@ declare module 'vue-router' {
   }
 }
 
-const builtPages: Record<string, () => Promise<unknown>> = {
+export const builtPages: Record<string, () => Promise<unknown>> = {
+  ...nutritionPages,
+  ...grazingPages,
   team: () => import('@/pages/TeamPage.vue'),
 }
 

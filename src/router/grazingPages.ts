@@ -1,0 +1,2 @@
+// Pages of Today, Fields, Strip plan and Season, by navigation name (lazy-loaded).
+export const grazingPages: Record<string, () => Promise<unknown>> = {}
