@@ -10,7 +10,6 @@ export function notFoundApi(req: Request, _res: Response, next: NextFunction) {
 type BodyParserError = Error & { type?: string; status?: number; expose?: boolean }
 
 // Express recognises error middleware by its four parameters.
-// eslint-disable-next-line @typescript-eslint/no-unused-vars
 export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction) {
   let e: AppError
   if (err instanceof AppError) e = err

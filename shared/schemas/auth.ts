@@ -12,7 +12,7 @@ export const passwordSchema = z
   .max(128, 'Use at most 128 characters.')
   .refine((p) => !isCommonPassword(p), 'This password is on a list of commonly used passwords; choose another.')
 
-export const emailSchema = z.email('Enter a valid e-mail address.').max(254).transform((e) => e.trim().toLowerCase())
+export const emailSchema = z.string('Enter a valid e-mail address.').trim().toLowerCase().pipe(z.email('Enter a valid e-mail address.').max(254))
 
 export const signUpSchema = z.object({
   name: z.string().trim().min(1, 'Enter your name.').max(120),
