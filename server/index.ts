@@ -32,7 +32,7 @@ async function main() {
     process.stdout.write(
       `\nStandGraze is running at ${url}\n` +
         (process.env.SEED_DEMO !== '0'
-          ? `\nDemo sign-ins (invented demo data), password "${DEMO_PASSWORD}":\n${demoSignIns.map((d) => `  ${d.email.padEnd(34)} ${d.label}`).join('\n')}\n`
+          ? `\nDemo sign-ins (invented demo data), password "${DEMO_PASSWORD}":\n${demoSignIns.map((d) => `  ${d.email.padEnd(40)} ${d.label}`).join('\n')}\n`
           : '') +
         (sink ? `\nOutgoing mail goes to a local sink; signed-in admins read it at ${url}/admin/mail\n` : '') +
         `\nPress Ctrl-C to stop.\n`,
