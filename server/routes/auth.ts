@@ -15,6 +15,8 @@ import {
 } from '../../shared/schemas/auth'
 import { changePassword, confirmPasswordReset, describeUser, requestPasswordReset, signIn, signUp } from '../services/accounts'
 import type { Config } from '../config'
+import { Operation } from '../models/index'
+import { DEMO_PASSWORD, DEMO_USERS } from '../seed/demo'
 
 function limiter(limit: number, windowMs: number, what: string) {
   return rateLimit({
@@ -60,6 +62,12 @@ export function authRouter(config: Config) {
   // Answers 200 either way, so a signed-out page load logs no failed request.
   r.get('/session', async (req, res) => {
     res.json({ user: req.user ? await describeUser(req.user) : null })
+  })
+
+  // The sign-in page offers the invented demo accounts while the demo is loaded.
+  r.get('/demo-accounts', async (_req, res) => {
+    const loaded = (await Operation.count({ where: { isDemo: true } })) > 0
+    res.json(loaded ? { password: DEMO_PASSWORD, accounts: DEMO_USERS.map((u) => ({ email: u.email, label: u.label })) } : { password: null, accounts: [] })
   })
 
   r.get('/me', requireUser, async (req, res) => {

@@ -10,6 +10,7 @@ export const authApi = {
   session: (): Promise<Me | null> => api<{ user: unknown }>('/auth/session').then((d) => (d.user ? meSchema.parse(d.user) : null)),
   signIn: (body: SignInInput): Promise<Me> => me(api('/auth/sign-in', { method: 'POST', body })),
   signUp: (body: SignUpInput): Promise<Me> => me(api('/auth/sign-up', { method: 'POST', body })),
+  demoAccounts: () => api<{ password: string | null; accounts: { email: string; label: string }[] }>('/auth/demo-accounts'),
   signOut: () => api<void>('/auth/sign-out', { method: 'POST' }),
   setUnits: (unitSystem: UnitSystem): Promise<Me> => me(api('/auth/me/preferences', { method: 'PATCH', body: { unitSystem } })),
   changePassword: (currentPassword: string, newPassword: string): Promise<Me> =>
