@@ -4,6 +4,7 @@ import { startTestApp, type TestApp } from '../helpers/app'
 import { seedDemo, DEMO_USERS } from '../../server/seed/demo'
 import { Membership, Operation, User } from '../../server/models/index'
 import { QueryTypes } from 'sequelize'
+import request from 'supertest'
 
 let t: TestApp
 beforeAll(async () => {
@@ -39,5 +40,12 @@ describe('seedDemo', () => {
     expect(after).toEqual(before)
     expect((await User.findByPk(ids.users.owner))!.unitSystem).toBe('metric')
     expect(await Membership.count({ where: { userId: ids.users.hand } })).toBe(1)
+  })
+
+  it('when the demo is loaded, then the sign-in page can list the demo accounts', async () => {
+    await seedDemo(t.sequelize, t.config)
+    const res = await request(t.app).get('/api/auth/demo-accounts')
+    expect(res.status).toBe(200)
+    expect(res.body.accounts.map((a: { email: string }) => a.email)).toEqual(DEMO_USERS.map((u) => u.email))
   })
 })
