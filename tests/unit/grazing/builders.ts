@@ -36,13 +36,16 @@ export function aGroup(over: Partial<GrazingGroupInput> = {}): GrazingGroupInput
   }
 }
 
+/** A 150-day winter; unless given, the one group is assigned to the one field for the whole plan. */
 export function aSeasonPlan(over: Partial<SeasonPlanInput> = {}): SeasonPlanInput {
+  const start = over.start ?? '2025-11-15'
+  const end = over.end ?? '2026-04-13'
   return {
-    start: '2025-11-15',
-    end: '2026-04-13',
+    start,
+    end,
     fields: [aField()],
     groups: [aGroup()],
-    assignments: [{ groupId: 'group-a', fieldId: 'field-a', from: '2025-11-15', to: '2026-04-13' }],
+    assignments: [{ groupId: 'group-a', fieldId: 'field-a', from: start, to: end }],
     shortfallFeed: { label: 'grass hay', dmFraction: 0.88, pricePerKgAsFed: 0.12 },
     ...over,
   }
