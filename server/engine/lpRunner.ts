@@ -1,0 +1,95 @@
+// The server's LP guard: one worker thread running javascript-lp-solver, a time limit per call, the worker replaced when stopped.
+import { MessageChannel, receiveMessageOnPort, Worker, type MessagePort } from 'node:worker_threads'
+import { registerLpRunner, type LinearProgram, type LpOutcome, type LpRunner } from '../../shared/engine/index'
+
+/** Longest the caller's thread blocks waiting synchronously; past it the wait goes on asynchronously until the time limit. */
+const SYNC_WAIT_MS = 10
+
+class TimeoutError extends Error {
+  override name = 'AbortError'
+  readonly code = 'TIMEOUT'
+}
+
+interface Slot {
+  worker: Worker
+  port: MessagePort
+  flag: Int32Array
+  seq: number
+}
+
+type WaitAsync = (a: Int32Array, i: number, v: number, t: number) => { async: boolean; value: 'ok' | 'not-equal' | 'timed-out' | Promise<'ok' | 'timed-out'> }
+const waitAsync = (Atomics as unknown as { waitAsync: WaitAsync }).waitAsync
+
+let slot: Slot | null = null
+let queue: Promise<unknown> = Promise.resolve()
+
+function spawn(): Slot {
+  const sab = new SharedArrayBuffer(12)
+  const { port1, port2 } = new MessageChannel()
+  const worker = new Worker(new URL('./lpWorker.mjs', import.meta.url), {
+    workerData: { port: port2, sab },
+    transferList: [port2],
+    // Inherited flags (a test runner's hooks, an inspector) would only slow the worker.
+    execArgv: [],
+  })
+  worker.unref()
+  port1.unref()
+  worker.on('error', () => {
+    if (slot?.worker === worker) slot = null
+  })
+  return { worker, port: port1, flag: new Int32Array(sab), seq: 0 }
+}
+
+async function waitFor(flag: Int32Array, index: number, notValue: number, deadline: number): Promise<boolean> {
+  const first = Math.min(SYNC_WAIT_MS, Math.max(0, deadline - performance.now()))
+  if (Atomics.wait(flag, index, notValue, first) !== 'timed-out') return true
+  const rest = deadline - performance.now()
+  if (rest <= 0) return Atomics.load(flag, index) !== notValue
+  const w = waitAsync(flag, index, notValue, rest)
+  const r = w.async ? await w.value : w.value
+  return r !== 'timed-out'
+}
+
+async function runNow(jobs: readonly LinearProgram[], deadline: number): Promise<LpOutcome[]> {
+  slot ??= spawn()
+  const s = slot
+  if (Atomics.load(s.flag, 2) !== 1 && !(await waitFor(s.flag, 2, 0, deadline))) throw new TimeoutError('LP worker not ready in time')
+  const seq = ++s.seq
+  s.port.postMessage({ seq, jobs })
+  Atomics.store(s.flag, 0, seq)
+  Atomics.notify(s.flag, 0)
+  if (!(await waitFor(s.flag, 1, seq - 1, deadline))) {
+    // javascript-lp-solver can loop for ever; terminate stops even a busy loop, and the next call starts a fresh worker.
+    if (slot === s) slot = null
+    void s.worker.terminate()
+    throw new TimeoutError('LP solve timed out')
+  }
+  const m = receiveMessageOnPort(s.port)?.message as { seq: number; outcomes?: LpOutcome[]; error?: string } | undefined
+  if (!m || m.seq !== seq || !m.outcomes) throw new Error(m?.error ?? 'LP worker answered out of turn')
+  return m.outcomes
+}
+
+const runner: LpRunner = {
+  name: 'server-worker-thread',
+  run(jobs, timeoutMs) {
+    const deadline = performance.now() + timeoutMs
+    // One request at a time per worker; time spent queued counts against the limit.
+    const result = queue.then(() => runNow(jobs, deadline))
+    queue = result.catch(() => undefined)
+    return result
+  },
+}
+
+/** Registers the worker-thread runner for every balanceRation in this process; `warm` starts the worker now rather than on first use. */
+export async function registerServerLpRunner(options: { warm?: boolean } = {}): Promise<void> {
+  registerLpRunner(runner)
+  if (options.warm) await runner.run([], 10_000)
+}
+
+/** Stops the worker (tests call it in afterAll so the process can exit). */
+export async function closeServerLpRunner(): Promise<void> {
+  registerLpRunner(null)
+  const s = slot
+  slot = null
+  if (s) await s.worker.terminate()
+}

@@ -1,0 +1,78 @@
+// A solver-neutral linear program (dense, small: a ration has a handful of feeds) and the independent check of any answer.
+
+/** minimise cost·x subject to rowLower ≤ A x ≤ rowUpper and colLower ≤ x ≤ colUpper (±Infinity where unbounded). */
+export interface LinearProgram {
+  colNames: string[]
+  cost: number[]
+  colLower: number[]
+  colUpper: number[]
+  rows: LpRow[]
+  /**
+   * Lexicographic second objective: after the first optimum c*, minimise this subject also to cost·x ≤ c* + tolerance.
+   * Ties of the first objective are then broken by the second.
+   */
+  secondary?: number[]
+}
+export interface LpRow {
+  name: string
+  coefs: number[]
+  lower: number
+  upper: number
+}
+
+export type LpOutcome =
+  | { status: 'optimal'; x: number[]; objective: number; rowDual?: number[]; colDual?: number[] }
+  | { status: 'infeasible' }
+  | { status: 'unbounded' }
+  | { status: 'error'; message: string }
+
+export type SolverName = 'javascript-lp-solver' | 'highs'
+
+/** Allowed slack of the first objective when the second breaks ties: relative 1e-9 with an absolute floor. */
+export function lexicographicTolerance(objective: number): number {
+  return 1e-9 * Math.max(1, Math.abs(objective))
+}
+
+/** Feasibility tolerance for checking an answer: 1e-7 relative to the size of the terms involved. */
+const FEAS_TOL = 1e-7
+
+export interface Violation {
+  what: string
+  by: number
+}
+
+/** Every bound and row of `lp` checked against `x`; an empty list means the answer is feasible. */
+export function checkLpSolution(lp: LinearProgram, x: readonly number[]): Violation[] {
+  const out: Violation[] = []
+  if (x.length !== lp.colNames.length) return [{ what: 'length', by: Math.abs(x.length - lp.colNames.length) }]
+  for (let j = 0; j < x.length; j++) {
+    const v = x[j]
+    if (!Number.isFinite(v)) {
+      out.push({ what: `column ${lp.colNames[j]} not finite`, by: Infinity })
+      continue
+    }
+    const tol = FEAS_TOL * Math.max(1, Math.abs(v))
+    if (v < lp.colLower[j] - tol) out.push({ what: `column ${lp.colNames[j]} below its lower bound`, by: lp.colLower[j] - v })
+    if (v > lp.colUpper[j] + tol) out.push({ what: `column ${lp.colNames[j]} above its upper bound`, by: v - lp.colUpper[j] })
+  }
+  for (const r of lp.rows) {
+    let act = 0
+    let mag = 0
+    for (let j = 0; j < x.length; j++) {
+      const t = r.coefs[j] * x[j]
+      act += t
+      mag += Math.abs(t)
+    }
+    const tol = FEAS_TOL * Math.max(1, mag, Number.isFinite(r.lower) ? Math.abs(r.lower) : 0, Number.isFinite(r.upper) ? Math.abs(r.upper) : 0)
+    if (act < r.lower - tol) out.push({ what: `row ${r.name} below its lower bound`, by: r.lower - act })
+    if (act > r.upper + tol) out.push({ what: `row ${r.name} above its upper bound`, by: act - r.upper })
+  }
+  return out
+}
+
+export function dot(a: readonly number[], b: readonly number[]): number {
+  let s = 0
+  for (let i = 0; i < a.length; i++) s += a[i] * b[i]
+  return s
+}
+

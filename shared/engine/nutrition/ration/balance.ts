@@ -1,0 +1,355 @@
+// The ration balance: least-cost supplement for a group on its field, with the field-alone deficiencies and conflicts in words.
+import { checkLpSolution, dot, type LinearProgram, type LpOutcome, type SolverName } from '../lp/program'
+import { loadHighs, solveWithHighs } from '../lp/adapter'
+import { pearsonFractions } from '../pearson'
+import { warningsOfDiet } from '../warnings'
+import { SOURCES } from '../sources'
+import type { NutritionWarning } from '../warning'
+import { registeredLpRunner } from './runner'
+import { buildRationLp, feedIntakes, needSupply, NUTRIENT_UNIT, rationContext, type RationContext, type RationLp } from './model'
+import {
+  balanceOptionsSchema,
+  rationProblemSchema,
+  type BalanceOptions,
+  type BalanceResult,
+  type Nutrient,
+  type RationProblem,
+} from './schema'
+
+type FallbackReason = NonNullable<BalanceResult['solverRuns'][number]['fallbackReason']>
+type Answer = { outcome: LpOutcome; solver: SolverName; fallbackReason?: FallbackReason; checkFailed?: boolean }
+
+interface Prepared {
+  ctx: RationContext
+  fieldOnly: RationLp
+  main: RationLp
+}
+
+function prepare(problem: RationProblem): Prepared {
+  const p = rationProblemSchema.parse(problem)
+  const ctx = rationContext(p)
+  const fieldOnly = buildRationLp(ctx, p.feeds.map((f) => f.role === 'field'), 'shortfall')
+  const main = buildRationLp(ctx, p.feeds.map(() => true), 'cost')
+  return { ctx, fieldOnly, main }
+}
+
+/** Accepts an in-process answer only if it is optimal and passes every constraint; anything else is re-solved by HiGHS. */
+function judge(lp: LinearProgram, o: LpOutcome | undefined): FallbackReason | null {
+  if (!o) return 'runner-error'
+  if (o.status === 'optimal') return checkLpSolution(lp, o.x).length === 0 ? null : 'failed-check'
+  if (o.status === 'infeasible') return 'infeasible-claim'
+  return 'solver-error'
+}
+
+async function viaHighs(lp: LinearProgram, reason: FallbackReason): Promise<Answer> {
+  await loadHighs()
+  const outcome = solveWithHighs(lp)
+  const checkFailed = outcome.status === 'optimal' && checkLpSolution(lp, outcome.x).length > 0
+  return { outcome, solver: 'highs', fallbackReason: reason, checkFailed }
+}
+
+async function settle(lps: readonly LinearProgram[], fromRunner: (LpOutcome | undefined)[] | null, reason: FallbackReason | null): Promise<Answer[]> {
+  const out: Answer[] = []
+  for (let k = 0; k < lps.length; k++) {
+    const why = fromRunner ? judge(lps[k], fromRunner[k]) : (reason ?? 'no-runner')
+    out.push(why === null ? { outcome: fromRunner![k]!, solver: 'javascript-lp-solver' } : await viaHighs(lps[k], why))
+  }
+  return out
+}
+
+const round = (v: number) => (Math.abs(v) < 1e-12 ? 0 : v)
+
+function shortfalls(r: RationLp, x: readonly number[], ctx: RationContext) {
+  const list: { nutrient: Nutrient; shortBy: number; unit: 'kg' | 'Mcal' | 'g' }[] = []
+  for (const n of ctx.needs) {
+    const j = r.shortCol[n.nutrient]
+    const s = j === undefined ? 0 : x[j]
+    if (s > 1e-7 * Math.max(1, n.need)) list.push({ nutrient: n.nutrient, shortBy: s, unit: NUTRIENT_UNIT[n.nutrient] })
+  }
+  return list
+}
+
+const NAME: Record<Nutrient, string> = { tdn: 'TDN', nem: 'NEm', neg: 'NEg', cp: 'CP', ca: 'Ca', p: 'P' }
+
+/** Which needs and limits collide, read from the duals of the least-shortfall LP (the limits that hold the shortfall up). */
+function conflictsInWords(r: RationLp, o: LpOutcome & { status: 'optimal' }, ctx: RationContext): string[] {
+  const short = shortfalls(r, o.x, ctx)
+  if (short.length === 0) return []
+  const needs = short.map((s) => NAME[s.nutrient])
+  const limits: string[] = []
+  let capacityBinds = false
+  const seen = new Set<string>()
+  const addLimit = (text: string) => {
+    if (!seen.has(text)) {
+      seen.add(text)
+      limits.push(text)
+    }
+  }
+  r.rowLimit.forEach((label, i) => {
+    if (!label || !o.rowDual) return
+    if (Math.abs(o.rowDual[i]) > 1e-9) {
+      addLimit(label.text)
+      if (label.kind === 'intake') capacityBinds = true
+    }
+  })
+  r.colLimit.forEach((label, j) => {
+    if (!label || !o.colDual) return
+    if (Math.abs(o.colDual[j]) > 1e-9) addLimit(label.text)
+  })
+  // Upper caps on a need row (Ca, P maxima) show as a dual of the "wrong" sign on that row.
+  for (const s of ['ca', 'p'] as const) {
+    const row = r.needRow[s]
+    const cap = s === 'ca' ? ctx.limits.maxCaG : ctx.limits.maxPG
+    if (row !== undefined && cap !== undefined && o.rowDual && o.rowDual[row] < -1e-9) addLimit(`${NAME[s]} at most ${cap} g/day`)
+  }
+  const list = (xs: string[]) => (xs.length <= 1 ? xs.join('') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`)
+  const out: string[] = []
+  if (limits.length === 0) {
+    out.push(`${list(needs)} cannot be met: the feeds offered do not contain enough of ${needs.length > 1 ? 'them' : 'it'} in any amount.`)
+  } else {
+    out.push(`${list(needs)} cannot ${needs.length > 1 ? 'all ' : ''}be met within ${list(limits)}.`)
+  }
+  if (capacityBinds) {
+    for (const s of short) {
+      const need = ctx.needs.find((n) => n.nutrient === s.nutrient)!.need
+      const best = Math.max(0, ...ctx.p.feeds.map((_, i) => (ctx.allowed[i] ? densityOf(ctx, i, s.nutrient) : 0)))
+      const unit = NUTRIENT_UNIT[s.nutrient]
+      out.push(
+        `Intake capacity against ${s.nutrient === 'cp' ? 'protein' : s.nutrient === 'ca' || s.nutrient === 'p' ? 'mineral' : 'energy'} density: ${NAME[s.nutrient]} needs ${(need / ctx.capacity).toFixed(3)} ${unit} per kg DM on average; the densest feed offered has ${best.toFixed(3)}.`,
+      )
+    }
+  }
+  return out
+}
+
+function densityOf(ctx: RationContext, i: number, n: Nutrient): number {
+  return ctx.density[i][n]
+}
+
+/**
+ * Smallest legume share of diet DM at which field feeds alone cover CP at full intake capacity: the Pearson square
+ * (Montana State Univ. Extension, "Pearson Square Examples") between the legume and the rest of the field, each in its offered
+ * proportions (equal shares when no offer is given). 0 when the rest already covers CP; null when even the legume cannot.
+ */
+export function minLegumeShareForProtein(ctx: RationContext): number | null {
+  const { p } = ctx
+  const field = p.feeds.map((f, i) => ({ f, i })).filter(({ f, i }) => f.role === 'field' && ctx.allowed[i])
+  const legumes = field.filter(({ f }) => f.isLegume)
+  const rest = field.filter(({ f }) => !f.isLegume)
+  if (legumes.length === 0 || p.requirements.cpKg <= 0) return null
+  const offer = new Map((p.fieldOffer ?? []).map((o) => [o.feedId, o.shareOfDm]))
+  const blendCp = (xs: typeof field) => {
+    const w = xs.map(({ f }) => (p.fieldOffer ? (offer.get(f.id) ?? 0) : 1))
+    const sw = w.reduce((a, b) => a + b, 0)
+    const weights = sw > 0 ? w.map((v) => v / sw) : xs.map(() => 1 / xs.length)
+    return xs.reduce((s, { f }, k) => s + weights[k] * f.cpPctDm, 0)
+  }
+  const targetCp = (100 * p.requirements.cpKg) / ctx.capacity
+  const legumeCp = blendCp(legumes)
+  if (rest.length === 0) return legumeCp >= targetCp ? 1 : null
+  const restCp = blendCp(rest)
+  if (restCp >= targetCp) return 0
+  if (legumeCp < targetCp) return null
+  return pearsonFractions(legumeCp, restCp, targetCp).fracA
+}
+
+function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: Answer | null, bestLp: RationLp | null, wantDuals: boolean): BalanceResult {
+  const { ctx, fieldOnly, main } = prep
+  const p = ctx.p
+  const nFeeds = p.feeds.length
+  const runs: BalanceResult['solverRuns'] = [
+    { lp: 'field-only', solver: fieldAns.solver, ...(fieldAns.fallbackReason ? { fallbackReason: fieldAns.fallbackReason } : {}) },
+    { lp: 'main', solver: mainAns.solver, ...(mainAns.fallbackReason ? { fallbackReason: mainAns.fallbackReason } : {}) },
+  ]
+  if (bestAns) runs.push({ lp: 'best-achievable', solver: bestAns.solver, ...(bestAns.fallbackReason ? { fallbackReason: bestAns.fallbackReason } : {}) })
+
+  const warnings: NutritionWarning[] = []
+  for (const a of [fieldAns, mainAns, bestAns]) {
+    if (a?.checkFailed) warnings.push({ code: 'solver-check-failed', message: 'An LP answer did not pass the constraint check within tolerance; treat this balance with care.', source: 'LP answer check' })
+  }
+
+  // Deficiencies of the best diet from the field alone.
+  let deficiencies: BalanceResult['deficiencies']
+  const conflicts: string[] = []
+  if (fieldAns.outcome.status === 'optimal') {
+    deficiencies = shortfalls(fieldOnly, fieldAns.outcome.x, ctx)
+  } else {
+    deficiencies = ctx.needs.map((n) => ({ nutrient: n.nutrient, shortBy: n.need, unit: NUTRIENT_UNIT[n.nutrient] }))
+    conflicts.push('The field feeds\' own minimum amounts cannot all be eaten within intake capacity and the limits.')
+  }
+
+  let status: BalanceResult['status']
+  let used: RationLp
+  let x: number[]
+  let stillShort: BalanceResult['stillShort'] = []
+  let duals: number[] | undefined
+  if (mainAns.outcome.status === 'optimal') {
+    used = main
+    x = mainAns.outcome.x
+    if (mainAns.solver === 'highs') duals = mainAns.outcome.rowDual
+    const { kgDm } = feedIntakes(main, x, nFeeds)
+    status = p.feeds.some((f, i) => f.role !== 'field' && kgDm[i] > 1e-9) ? 'covered-with-supplement' : 'covered'
+  } else if (bestAns && bestLp && bestAns.outcome.status === 'optimal') {
+    used = bestLp
+    x = bestAns.outcome.x
+    status = 'short'
+    stillShort = shortfalls(bestLp, x, ctx)
+    conflicts.push(...conflictsInWords(bestLp, bestAns.outcome, ctx))
+  } else {
+    used = main
+    x = new Array<number>(main.lp.colNames.length).fill(0)
+    status = 'short'
+    stillShort = ctx.needs.map((n) => ({ nutrient: n.nutrient, shortBy: n.need, unit: NUTRIENT_UNIT[n.nutrient] }))
+    conflicts.push('The feeds\' minimum amounts and the limits cannot all hold at once, so no diet could be formed.')
+  }
+
+  const { kgDm, kgDmForGain } = feedIntakes(used, x, nFeeds)
+  const intakes = p.feeds.map((f, i) => ({
+    feedId: f.id,
+    kgDm: kgDm[i],
+    kgAsFed: kgDm[i] / (f.dmPct / 100),
+    ...(ctx.split ? { kgDmForGain: kgDmForGain[i] } : {}),
+  }))
+  const supply = ctx.needs.map((n) => {
+    const supplied = round(needSupply(used, x, n.nutrient))
+    const row = used.needRow[n.nutrient]
+    return {
+      nutrient: n.nutrient,
+      unit: NUTRIENT_UNIT[n.nutrient],
+      need: n.need,
+      supplied,
+      pctCovered: (100 * supplied) / n.need,
+      ...(wantDuals && duals && row !== undefined ? { shadowPrice: round(duals[row]) } : {}),
+    }
+  })
+  const supplements = p.feeds
+    .map((f, i) => ({ f, i }))
+    .filter(({ f, i }) => f.role !== 'field' && kgDm[i] > 0)
+    .map(({ f, i }) => ({ feedId: f.id, kgDm: kgDm[i], kgAsFed: kgDm[i] / (f.dmPct / 100), cost: kgDm[i] * (f.costPerKgDm ?? 0) }))
+  const costPerHeadDay = p.feeds.reduce((s, f, i) => s + kgDm[i] * (f.costPerKgDm ?? 0), 0)
+
+  warnings.push(
+    ...warningsOfDiet({
+      species: p.species,
+      feeds: p.feeds,
+      intakes: intakes.map((d) => ({ feedId: d.feedId, kgDm: d.kgDm })),
+      requirements: p.requirements,
+      limits: p.limits,
+      context: p.context,
+    }),
+  )
+  for (const r of runs) {
+    if (r.fallbackReason && r.fallbackReason !== 'no-runner' && r.fallbackReason !== 'requested') {
+      warnings.push({ code: 'solver-fallback', message: `The ${r.lp} LP was re-solved with HiGHS (${r.fallbackReason}).`, source: 'HiGHS (highs package)' })
+    }
+  }
+
+  return {
+    status,
+    intakes,
+    supply,
+    deficiencies,
+    stillShort,
+    supplements,
+    costPerHeadDay: round(costPerHeadDay),
+    intakeCapacityKg: ctx.capacity,
+    minLegumeShareForProtein: minLegumeShareForProtein(ctx),
+    conflicts,
+    warnings,
+    solver: (bestAns && mainAns.outcome.status !== 'optimal' ? bestAns : mainAns).solver,
+    solverRuns: runs,
+  }
+}
+
+async function finish(prep: Prepared, fieldAns: Answer, mainAns: Answer, wantDuals: boolean): Promise<BalanceResult> {
+  let bestAns: Answer | null = null
+  let bestLp: RationLp | null = null
+  if (mainAns.outcome.status !== 'optimal') {
+    // No diet meets every need: the closest one over all feeds, cheapest among equals, by HiGHS for its duals.
+    bestLp = buildRationLp(prep.ctx, prep.ctx.p.feeds.map(() => true), 'shortfall', true)
+    await loadHighs()
+    const outcome = solveWithHighs(bestLp.lp)
+    bestAns = { outcome, solver: 'highs', checkFailed: outcome.status === 'optimal' && checkLpSolution(bestLp.lp, outcome.x).length > 0 }
+  }
+  return assemble(prep, fieldAns, mainAns, bestAns, bestLp, wantDuals)
+}
+
+/**
+ * Balances one ration: meets energy (TDN, and NEm/NEg for cattle), CP, Ca and P at least at need, within intake capacity, the
+ * Ca:P ratio, grain, urea and Cu limits, what the field offers and each feed's availability, at least supplement cost, ties going
+ * to the diet with the most field feed. The LP is the classic least-cost ration formulation; NEm and NEg are met from separate
+ * portions of each feed as in NRC, Nutrient Requirements of Beef Cattle, 7th rev. ed. (1996/2000). javascript-lp-solver runs in the
+ * registered runner with a time limit; every answer is checked against every constraint, and on a timeout, a failed check or an
+ * "infeasible" claim HiGHS re-solves it. With no runner, or with `shadowPrices`, HiGHS answers (its duals become `shadowPrice`).
+ */
+export async function balanceRation(problem: RationProblem, options?: BalanceOptions): Promise<BalanceResult> {
+  const prep = prepare(problem)
+  const opt = balanceOptionsSchema.parse(options ?? {})
+  const runner = opt.solver === 'auto' ? registeredLpRunner() : null
+  if (opt.shadowPrices || opt.solver === 'highs') {
+    const [fieldAns, mainAns] = await settle([prep.fieldOnly.lp, prep.main.lp], null, 'requested')
+    return finish(prep, fieldAns, mainAns, true)
+  }
+  let fromRunner: (LpOutcome | undefined)[] | null = null
+  let reason: FallbackReason | null = runner ? null : 'no-runner'
+  if (runner) {
+    try {
+      fromRunner = await runner.run([prep.fieldOnly.lp, prep.main.lp], opt.timeoutMs)
+    } catch (e) {
+      reason = isTimeout(e) ? 'timeout' : 'runner-error'
+    }
+  }
+  const [fieldAns, mainAns] = await settle([prep.fieldOnly.lp, prep.main.lp], fromRunner, reason)
+  return finish(prep, fieldAns, mainAns, false)
+}
+
+function isTimeout(e: unknown): boolean {
+  return typeof e === 'object' && e !== null && ((e as { name?: string }).name === 'AbortError' || (e as { code?: string }).code === 'TIMEOUT')
+}
+
+/** Problems sent to the runner per round trip by `balanceRations`. */
+export const BATCH_CHUNK = 64
+
+/**
+ * Balances many rations, sharing the runner's worker: problems go in chunks of 64 per round trip, each chunk under the same time
+ * limit; a chunk that times out or fails falls back to HiGHS problem by problem. Same method and sources as `balanceRation`.
+ */
+export async function balanceRations(problems: readonly RationProblem[], options?: BalanceOptions): Promise<BalanceResult[]> {
+  const opt = balanceOptionsSchema.parse(options ?? {})
+  const preps = problems.map(prepare)
+  const runner = opt.solver === 'auto' && !opt.shadowPrices ? registeredLpRunner() : null
+  const out: BalanceResult[] = []
+  for (let start = 0; start < preps.length; start += BATCH_CHUNK) {
+    const chunk = preps.slice(start, start + BATCH_CHUNK)
+    const jobs = chunk.flatMap((q) => [q.fieldOnly.lp, q.main.lp])
+    let fromRunner: (LpOutcome | undefined)[] | null = null
+    let reason: FallbackReason | null = runner ? null : opt.shadowPrices || opt.solver === 'highs' ? 'requested' : 'no-runner'
+    if (runner) {
+      try {
+        fromRunner = await runner.run(jobs, opt.timeoutMs)
+      } catch (e) {
+        reason = isTimeout(e) ? 'timeout' : 'runner-error'
+      }
+    }
+    for (let k = 0; k < chunk.length; k++) {
+      const q = chunk[k]
+      const [fieldAns, mainAns] = await settle([q.fieldOnly.lp, q.main.lp], fromRunner ? [fromRunner[2 * k], fromRunner[2 * k + 1]] : null, reason)
+      out.push(await finish(q, fieldAns, mainAns, opt.shadowPrices))
+    }
+  }
+  return out
+}
+
+/** The least-cost LP of a problem, exactly as the engine solves it (for cross-checks and benchmarks). */
+export function rationLinearProgram(problem: RationProblem): LinearProgram {
+  return prepare(problem).main.lp
+}
+/** Cost of an intake vector (kg DM per feed, in problem order) at the problem's prices. */
+export function dietCost(problem: RationProblem, kgDm: readonly number[]): number {
+  const p = rationProblemSchema.parse(problem)
+  return dot(
+    p.feeds.map((f) => f.costPerKgDm ?? 0),
+    kgDm,
+  )
+}
+export { SOURCES }

@@ -1,0 +1,291 @@
+// Turns a ration problem into linear programs: least-cost with every need and limit, and least-shortfall diets.
+import { energyOfTdn } from '../energy'
+import type { LinearProgram, LpRow } from '../lp/program'
+import type { Feed, Nutrient, ParsedRationProblem } from './schema'
+
+/** Default limits, each with its label; all can be overridden in `limits`. */
+export const DEFAULT_LIMITS = {
+  /** Ca:P at least 1:1 (common practice). */
+  minCaToP: 1,
+  /** Urea at most ≈ 1 % of diet DM (common practice). */
+  maxUreaShareOfDm: 0.01,
+  /** Sheep: Cu at most 10 mg/kg DM — toxicity seen from ≈ 10 mg/kg (Berger, Univ. of Illinois, citing Church & Pond 1988 — read). */
+  sheepMaxCuMgPerKgDm: 10,
+  /** Field selection may depart ±0.10 of field DM from the offered shares (a default setting; no published figure). */
+  selectionTolerance: 0.1,
+} as const
+
+export const NUTRIENT_UNIT: Record<Nutrient, 'kg' | 'Mcal' | 'g'> = { tdn: 'kg', nem: 'Mcal', neg: 'Mcal', cp: 'kg', ca: 'g', p: 'g' }
+
+export interface FeedDensity {
+  tdn: number
+  nem: number
+  neg: number
+  cp: number
+  ca: number
+  p: number
+  cu: number
+}
+
+/** Per kg DM: kg TDN, Mcal NEm and NEg, kg CP, g Ca and P, mg Cu. */
+export function feedDensity(f: Feed): FeedDensity {
+  const e = energyOfTdn(f.tdnPctDm)
+  return {
+    tdn: f.tdnPctDm / 100,
+    nem: e.nemMcalPerKg,
+    neg: e.negMcalPerKg,
+    cp: f.cpPctDm / 100,
+    ca: (f.caPctDm ?? 0) * 10,
+    p: (f.pPctDm ?? 0) * 10,
+    cu: f.cuMgPerKgDm ?? 0,
+  }
+}
+
+export interface NeedSpec {
+  nutrient: Nutrient
+  need: number
+}
+
+export interface LimitLabel {
+  kind: 'intake' | 'grain' | 'urea' | 'ca-p-min' | 'ca-p-max' | 'ca-max' | 'p-max' | 'cu' | 'offer' | 'feed-max' | 'feed-min'
+  text: string
+}
+
+export interface RationLp {
+  lp: LinearProgram
+  /** For each LP column: the feed index, and which energy pool it feeds when NEm and NEg are split; -1 for shortfall columns. */
+  colFeed: number[]
+  colPool: ('all' | 'm' | 'g' | 'short')[]
+  needRow: Partial<Record<Nutrient, number>>
+  shortCol: Partial<Record<Nutrient, number>>
+  /** Non-need rows and bounded columns, labelled for conflicts in words. */
+  rowLimit: (LimitLabel | null)[]
+  colLimit: (LimitLabel | null)[]
+}
+
+export interface RationContext {
+  p: ParsedRationProblem
+  density: FeedDensity[]
+  needs: NeedSpec[]
+  capacity: number
+  split: boolean
+  checkCa: boolean
+  checkP: boolean
+  /** Feeds the species may be offered (cattle-only products never go to sheep). */
+  allowed: boolean[]
+  limits: {
+    minCaToP: number | undefined
+    maxCaToP: number | undefined
+    maxGrainShareOfDm: number | undefined
+    maxUreaShareOfDm: number
+    maxCaG: number | undefined
+    maxPG: number | undefined
+    maxCuMgPerKgDm: number | undefined
+    selectionTolerance: number
+  }
+}
+
+export function rationContext(p: ParsedRationProblem): RationContext {
+  const r = p.requirements
+  const density = p.feeds.map(feedDensity)
+  const allowed = p.feeds.map((f) => !(p.species === 'sheep' && f.cattleOnly))
+  const checkCa = p.feeds.some((f) => f.caPctDm !== undefined)
+  const checkP = p.feeds.some((f) => f.pPctDm !== undefined)
+  const split = p.species === 'cattle' && r.nemMcal !== undefined && (r.negMcal ?? 0) > 0
+  const needs: NeedSpec[] = []
+  const add = (nutrient: Nutrient, need: number | undefined) => {
+    if (need !== undefined && need > 0) needs.push({ nutrient, need })
+  }
+  add('tdn', r.tdnKg)
+  if (p.species === 'cattle') {
+    add('nem', r.nemMcal)
+    if (split) add('neg', r.negMcal)
+  }
+  add('cp', r.cpKg)
+  if (checkCa) add('ca', r.caG)
+  if (checkP) add('p', r.pG)
+  const l = p.limits ?? {}
+  const hasCu = p.feeds.some((f, i) => allowed[i] && f.cuMgPerKgDm !== undefined)
+  return {
+    p,
+    density,
+    needs,
+    capacity: l.maxDmiKg ?? r.dmiKg,
+    split,
+    checkCa,
+    checkP,
+    allowed,
+    limits: {
+      minCaToP: checkCa && checkP ? (l.minCaToP ?? DEFAULT_LIMITS.minCaToP) : undefined,
+      maxCaToP: checkCa && checkP ? l.maxCaToP : undefined,
+      maxGrainShareOfDm: l.maxGrainShareOfDm,
+      maxUreaShareOfDm: l.maxUreaShareOfDm ?? DEFAULT_LIMITS.maxUreaShareOfDm,
+      maxCaG: checkCa ? l.maxCaG : undefined,
+      maxPG: checkP ? l.maxPG : undefined,
+      maxCuMgPerKgDm: hasCu ? (l.maxCuMgPerKgDm ?? (p.species === 'sheep' ? DEFAULT_LIMITS.sheepMaxCuMgPerKgDm : undefined)) : undefined,
+      selectionTolerance: l.selectionTolerance ?? DEFAULT_LIMITS.selectionTolerance,
+    },
+  }
+}
+
+const fmt = (v: number, d = 2) => (Math.round(v * 10 ** d) / 10 ** d).toString()
+
+/**
+ * Builds one LP. `include` picks the feeds (the rest are left out); `mode` 'cost' requires every need and minimises feed cost,
+ * breaking ties towards the most field feed; 'shortfall' lets each need fall short at a price of 1 per whole need (relative),
+ * so the optimum is the diet that comes closest, with feed cost as the tie-breaker when `costTieBreak` is set.
+ */
+export function buildRationLp(ctx: RationContext, include: readonly boolean[], mode: 'cost' | 'shortfall', costTieBreak = false): RationLp {
+  const { p, density, split, limits } = ctx
+  const feeds = p.feeds
+  const colFeed: number[] = []
+  const colPool: RationLp['colPool'] = []
+  feeds.forEach((_, i) => {
+    if (!include[i] || !ctx.allowed[i]) return
+    if (split) {
+      colFeed.push(i, i)
+      colPool.push('m', 'g')
+    } else {
+      colFeed.push(i)
+      colPool.push('all')
+    }
+  })
+  const shortCol: RationLp['shortCol'] = {}
+  if (mode === 'shortfall') {
+    for (const n of ctx.needs) {
+      shortCol[n.nutrient] = colFeed.length
+      colFeed.push(-1)
+      colPool.push('short')
+    }
+  }
+  const nCols = colFeed.length
+  const isFeedCol = (j: number) => colFeed[j] >= 0
+  const rows: LpRow[] = []
+  const rowLimit: (LimitLabel | null)[] = []
+  const addRow = (name: string, coef: (i: number, j: number) => number, lower: number, upper: number, label: LimitLabel | null) => {
+    const coefs = new Array<number>(nCols).fill(0)
+    for (let j = 0; j < nCols; j++) if (isFeedCol(j)) coefs[j] = coef(colFeed[j], j)
+    rows.push({ name, coefs, lower, upper })
+    rowLimit.push(label)
+    return rows.length - 1
+  }
+
+  addRow('intake', () => 1, -Infinity, ctx.capacity, { kind: 'intake', text: `intake capacity (${fmt(ctx.capacity)} kg DM/day)` })
+
+  const needRow: RationLp['needRow'] = {}
+  for (const n of ctx.needs) {
+    const coef = (i: number, j: number): number => {
+      const d = density[i]
+      switch (n.nutrient) {
+        case 'nem':
+          return colPool[j] === 'g' ? 0 : d.nem
+        case 'neg':
+          return colPool[j] === 'm' ? 0 : d.neg
+        default:
+          return d[n.nutrient]
+      }
+    }
+    const upper = n.nutrient === 'ca' && limits.maxCaG !== undefined ? limits.maxCaG : n.nutrient === 'p' && limits.maxPG !== undefined ? limits.maxPG : Infinity
+    const r = addRow(`need:${n.nutrient}`, coef, n.need, upper, null)
+    if (mode === 'shortfall') rows[r].coefs[shortCol[n.nutrient]!] = 1
+    needRow[n.nutrient] = r
+  }
+  // A cap on Ca or P without a need row still has to hold.
+  if (limits.maxCaG !== undefined && needRow.ca === undefined) addRow('max:ca', (i) => density[i].ca, -Infinity, limits.maxCaG, { kind: 'ca-max', text: `Ca at most ${fmt(limits.maxCaG)} g/day` })
+  if (limits.maxPG !== undefined && needRow.p === undefined) addRow('max:p', (i) => density[i].p, -Infinity, limits.maxPG, { kind: 'p-max', text: `P at most ${fmt(limits.maxPG)} g/day` })
+
+  if (limits.minCaToP !== undefined && limits.minCaToP > 0) {
+    const r = limits.minCaToP
+    addRow('ca-p-min', (i) => density[i].ca - r * density[i].p, 0, Infinity, { kind: 'ca-p-min', text: `Ca:P at least ${fmt(r, 2)}:1` })
+  }
+  if (limits.maxCaToP !== undefined) {
+    const r = limits.maxCaToP
+    addRow('ca-p-max', (i) => density[i].ca - r * density[i].p, -Infinity, 0, { kind: 'ca-p-max', text: `Ca:P at most ${fmt(r, 2)}:1` })
+  }
+  const included = (i: number) => include[i] && ctx.allowed[i]
+  if (limits.maxGrainShareOfDm !== undefined && feeds.some((f, i) => included(i) && f.isGrain)) {
+    const s = limits.maxGrainShareOfDm
+    addRow('grain-share', (i) => (feeds[i].isGrain ? 1 : 0) - s, -Infinity, 0, { kind: 'grain', text: `grain at most ${fmt(s * 100, 1)} % of diet DM` })
+  }
+  if (feeds.some((f, i) => included(i) && f.isUrea)) {
+    const u = limits.maxUreaShareOfDm
+    addRow('urea-share', (i) => (feeds[i].isUrea ? 1 : 0) - u, -Infinity, 0, { kind: 'urea', text: `urea at most ${fmt(u * 100, 2)} % of diet DM` })
+  }
+  if (limits.maxCuMgPerKgDm !== undefined) {
+    const c = limits.maxCuMgPerKgDm
+    addRow('cu', (i) => density[i].cu - c, -Infinity, 0, { kind: 'cu', text: `Cu at most ${fmt(c, 1)} mg/kg DM` })
+  }
+  // What the field offers: each field feed's share of field DM stays within ±tolerance of its offered share.
+  if (p.fieldOffer) {
+    const tol = limits.selectionTolerance
+    const share = new Map(p.fieldOffer.map((o) => [o.feedId, o.shareOfDm]))
+    feeds.forEach((f, k) => {
+      if (f.role !== 'field' || !included(k)) return
+      const o = share.get(f.id) ?? 0
+      const isField = (i: number) => (feeds[i].role === 'field' ? 1 : 0)
+      const text = `what the field offers (${f.name} within ${fmt((o - tol) * 100, 0)}–${fmt((o + tol) * 100, 0)} % of field DM)`
+      if (o + tol < 1) addRow(`offer-max:${f.id}`, (i) => (i === k ? 1 : 0) - (o + tol) * isField(i), -Infinity, 0, { kind: 'offer', text })
+      if (o - tol > 0) addRow(`offer-min:${f.id}`, (i) => (i === k ? 1 : 0) - (o - tol) * isField(i), 0, Infinity, { kind: 'offer', text })
+    })
+  }
+
+  const colLower = new Array<number>(nCols).fill(0)
+  const colUpper = new Array<number>(nCols).fill(Infinity)
+  const colLimit: (LimitLabel | null)[] = new Array(nCols).fill(null)
+  feeds.forEach((f, i) => {
+    if (!included(i)) return
+    const maxText: LimitLabel | null = f.maxKgDm !== undefined ? { kind: 'feed-max', text: `the availability of ${f.name} (at most ${fmt(f.maxKgDm)} kg DM/day)` } : null
+    const minText: LimitLabel | null = f.minKgDm ? { kind: 'feed-min', text: `the minimum of ${f.name} (${fmt(f.minKgDm)} kg DM/day)` } : null
+    if (split) {
+      if (f.maxKgDm !== undefined) addRow(`feed-max:${f.id}`, (k) => (k === i ? 1 : 0), -Infinity, f.maxKgDm, maxText)
+      if (f.minKgDm) addRow(`feed-min:${f.id}`, (k) => (k === i ? 1 : 0), f.minKgDm, Infinity, minText)
+    } else {
+      const j = colFeed.indexOf(i)
+      if (f.maxKgDm !== undefined) colUpper[j] = f.maxKgDm
+      if (f.minKgDm) colLower[j] = f.minKgDm
+      colLimit[j] = maxText ?? minText
+    }
+  })
+
+  const needOf = new Map(ctx.needs.map((n) => [n.nutrient, n.need]))
+  const feedCost = (j: number) => (isFeedCol(j) ? (feeds[colFeed[j]].costPerKgDm ?? 0) : 0)
+  let cost: number[]
+  let secondary: number[] | undefined
+  if (mode === 'cost') {
+    cost = Array.from({ length: nCols }, (_, j) => feedCost(j))
+    secondary = Array.from({ length: nCols }, (_, j) => (isFeedCol(j) && feeds[colFeed[j]].role === 'field' ? -1 : 0))
+  } else {
+    cost = Array.from({ length: nCols }, (_, j) => (colPool[j] === 'short' ? 1 / needOf.get(nutrientOfShortCol(shortCol, j))! : 0))
+    secondary = costTieBreak ? Array.from({ length: nCols }, (_, j) => feedCost(j)) : undefined
+  }
+  const colNames = colFeed.map((i, j) => (i >= 0 ? `${feeds[i].id}:${colPool[j]}` : `short:${nutrientOfShortCol(shortCol, j)}`))
+  return { lp: { colNames, cost, colLower, colUpper, rows, secondary }, colFeed, colPool, needRow, shortCol, rowLimit, colLimit }
+}
+
+function nutrientOfShortCol(shortCol: RationLp['shortCol'], j: number): Nutrient {
+  for (const [k, v] of Object.entries(shortCol)) if (v === j) return k as Nutrient
+  throw new Error(`column ${j} is not a shortfall column`)
+}
+
+/** kg DM of each feed from an LP answer (columns of a split feed added up), cleaned of round-off below 1e-10 kg. */
+export function feedIntakes(r: RationLp, x: readonly number[], nFeeds: number): { kgDm: number[]; kgDmForGain: number[] } {
+  const kgDm = new Array<number>(nFeeds).fill(0)
+  const kgDmForGain = new Array<number>(nFeeds).fill(0)
+  r.colFeed.forEach((i, j) => {
+    if (i < 0) return
+    kgDm[i] += x[j]
+    if (r.colPool[j] === 'g') kgDmForGain[i] += x[j]
+  })
+  const clean = (v: number) => (Math.abs(v) < 1e-10 ? 0 : Math.max(0, v))
+  return { kgDm: kgDm.map(clean), kgDmForGain: kgDmForGain.map(clean) }
+}
+
+/** What the LP answer supplies against each need row (NEm and NEg from their own pools). */
+export function needSupply(r: RationLp, x: readonly number[], need: Nutrient): number {
+  const row = r.needRow[need]
+  if (row === undefined) return 0
+  const coefs = r.lp.rows[row].coefs
+  let s = 0
+  for (let j = 0; j < x.length; j++) if (r.colFeed[j] >= 0) s += coefs[j] * x[j]
+  return s
+}
