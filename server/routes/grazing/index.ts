@@ -1,4 +1,5 @@
 // Operation-scoped routes for fields, strip plans, the season and the crew's Today records.
 import type { ScopedRouter } from '../scoped'
+import { fieldRoutes } from './fields'
 
-export const grazingRoutes: Array<(r: ScopedRouter) => void> = []
+export const grazingRoutes: Array<(r: ScopedRouter) => void> = [fieldRoutes]

@@ -1,0 +1,3 @@
+// Grazing schemas: fields and components, yield worksheets, strip plans, season, Today and crew records.
+export * from './fields'
+export * from './estimates'
