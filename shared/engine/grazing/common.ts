@@ -1,8 +1,15 @@
 // Shared zod primitives and provenance types for the grazing engine.
 import { z } from 'zod'
 
-/** A calendar date as 'YYYY-MM-DD'; all arithmetic on it is done in UTC (see dates.ts). */
-export const isoDateSchema = z.iso.date()
+/** A date the engine returns: 'YYYY-MM-DD', format checked only. */
+export const isoDateOutSchema = z.iso.date()
+/**
+ * A date given to the engine: 'YYYY-MM-DD' between 1900 and 2199, so that anything computed from it (plus at most
+ * MAX_GRAZING_DAYS) still has a four-digit year. All arithmetic on it is done in UTC (see dates.ts).
+ */
+export const isoDateSchema = z.iso.date().refine((d) => d >= '1900-01-01' && d <= '2199-12-31', { message: 'date must fall between 1900 and 2199' })
+/** Longest span a plan reports in days (100 years); a field that lasts longer is reported at this cap with a warning. */
+export const MAX_GRAZING_DAYS = 36_525
 
 /** Finite, strictly positive number (zod 4 already rejects NaN and ±Infinity). */
 export const positive = () => z.number().positive()

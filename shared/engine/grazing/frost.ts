@@ -1,6 +1,6 @@
 // Prussic-acid frost wait for sorghum: strips stay closed for a set number of days after every frost.
 import { z } from 'zod'
-import { isoDateSchema, type Cited } from './common'
+import { isoDateOutSchema, isoDateSchema, type Cited } from './common'
 import { addDays, dayNumber } from './dates'
 
 /**
@@ -35,9 +35,9 @@ export type FrostWaitInput = z.input<typeof frostWaitInputSchema>
 export const frostWaitSchema = z.object({
   blocked: z.boolean(),
   /** First date sorghum may be grazed again after the frosts so far; null when no frost has come by the date. */
-  firstGrazingDate: isoDateSchema.nullable(),
+  firstGrazingDate: isoDateOutSchema.nullable(),
   daysLeft: z.number().int(),
-  governingFrost: z.object({ date: isoDateSchema, killing: z.boolean() }).nullable(),
+  governingFrost: z.object({ date: isoDateOutSchema, killing: z.boolean() }).nullable(),
   /** Whether a killing frost has come by the date (the sorghum is dead, not just frosted). */
   killed: z.boolean(),
 })

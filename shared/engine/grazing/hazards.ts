@@ -1,6 +1,6 @@
 // Cautions for a group on a field on a date: frost wait, nitrate, grain, bloat and copper, each with its rule and source.
 import { z } from 'zod'
-import { evidenceLabelSchema, isoDateSchema, positiveFraction } from './common'
+import { evidenceLabelSchema, isoDateOutSchema, isoDateSchema, positiveFraction } from './common'
 import { SORGHUM_BU_KG, HA_PER_ACRE } from './conversions'
 import { frostWait } from './frost'
 import { nitrateGuidance } from './nitrate'
@@ -43,7 +43,7 @@ export const cautionSchema = z.object({
   /** True when strips of this field should not be grazed on the date. */
   blocksGrazing: z.boolean(),
   /** Date the block or limit is expected to end, when known. */
-  until: isoDateSchema.nullable(),
+  until: isoDateOutSchema.nullable(),
   consult: z.string(),
 })
 export type Caution = z.infer<typeof cautionSchema>

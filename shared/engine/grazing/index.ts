@@ -1,5 +1,5 @@
 // Grazing: field supply, yield worksheets, strip plan, diet within a strip, season budget, hazards, field economics.
-export { evidenceLabelSchema, type EvidenceLabel, type Cited } from './common'
+export { MAX_GRAZING_DAYS, evidenceLabelSchema, type EvidenceLabel, type Cited } from './common'
 export * from './conversions'
 export * from './field'
 export * from './yield'

@@ -1,6 +1,6 @@
 // Season budget: daily dry-matter supply and demand across fields and groups, by week, with supplement and cost.
 import { z } from 'zod'
-import { isoDateSchema, nonNegative, positiveFraction } from './common'
+import { isoDateOutSchema, isoDateSchema, nonNegative, positiveFraction } from './common'
 import { addDays, dayNumber, daysBetween } from './dates'
 import { grazingAccessSchema, defaultUtilization } from './animals'
 import { DEFAULT_FROST_WAIT_DAYS, frostWaitParsed } from './frost'
@@ -56,8 +56,8 @@ export type SeasonPlan = z.infer<typeof seasonPlanSchema>
 export type SeasonPlanInput = z.input<typeof seasonPlanSchema>
 
 export const seasonWeekSchema = z.object({
-  weekStart: isoDateSchema,
-  weekEnd: isoDateSchema,
+  weekStart: isoDateOutSchema,
+  weekEnd: isoDateOutSchema,
   days: z.number().int(),
   demandKgDm: z.number(),
   /** Eaten from the fields. */
@@ -72,7 +72,7 @@ export type SeasonWeek = z.infer<typeof seasonWeekSchema>
 
 export const seasonBudgetSchema = z.object({
   weeks: z.array(seasonWeekSchema),
-  firstShortfallDate: isoDateSchema.nullable(),
+  firstShortfallDate: isoDateOutSchema.nullable(),
   /** Days from the start fed in full by fields and routine supplement before the first shortfall. */
   daysFullyFed: z.number().int(),
   totalDemandKgDm: z.number(),
@@ -89,13 +89,13 @@ export const seasonBudgetSchema = z.object({
       headDays: z.number(),
       grazedKgDm: z.number(),
       shortfallKgDm: z.number(),
-      firstShortfallDate: isoDateSchema.nullable(),
+      firstShortfallDate: isoDateOutSchema.nullable(),
       cost: z.number(),
       costPerHeadPerDay: z.number(),
     }),
   ),
   byField: z.array(
-    z.object({ fieldId: z.string(), grazedAreaHa: z.number(), remainingAreaHa: z.number(), usedUpOn: isoDateSchema.nullable(), frostBlockedDays: z.number().int() }),
+    z.object({ fieldId: z.string(), grazedAreaHa: z.number(), remainingAreaHa: z.number(), usedUpOn: isoDateOutSchema.nullable(), frostBlockedDays: z.number().int() }),
   ),
 })
 export type SeasonBudget = z.infer<typeof seasonBudgetSchema>

@@ -1,6 +1,6 @@
 // Strip plan: strip area, fence move, days a field lasts, by forage or by grain allowance, and whole-field access.
 import { z } from 'zod'
-import { isoDateSchema, positive, positiveFraction } from './common'
+import { MAX_GRAZING_DAYS, isoDateOutSchema, isoDateSchema, positive, positiveFraction } from './common'
 import { addDays } from './dates'
 import { DEFAULT_PACE_M, metresToPaces } from './conversions'
 import { defaultUtilization, UTILIZATION_DEFAULTS } from './animals'
@@ -45,7 +45,7 @@ export const stripPlanSchema = z.object({
   fenceMovePaces: z.number(),
   /** Length of the field along the direction the fence advances. */
   fieldLengthM: z.number(),
-  /** Whole days the field feeds the group in full (days × daily area never exceeds the field). */
+  /** Whole days the field feeds the group in full (days × daily area never exceeds the field), at most MAX_GRAZING_DAYS. */
   daysOfGrazing: z.number().int(),
   /** The same without rounding down to whole days. */
   exactDays: z.number(),
@@ -55,15 +55,19 @@ export const stripPlanSchema = z.object({
   lastStripDays: z.number().int(),
   grazedAreaHa: z.number(),
   /** First day the field no longer feeds the group: start + daysOfGrazing. */
-  endDate: isoDateSchema,
+  endDate: isoDateOutSchema,
   /** Last day on the field; null when the field cannot feed the group one whole day. */
-  lastGrazingDate: isoDateSchema.nullable(),
+  lastGrazingDate: isoDateOutSchema.nullable(),
   warnings: z.array(z.string()),
 })
 export type StripPlan = z.infer<typeof stripPlanSchema>
 
-/** Largest whole number of days with days × dailyArea ≤ field, robust to floating-point error in either direction. */
+/**
+ * Largest whole number of days with days × dailyArea ≤ field, robust to floating-point error in either direction,
+ * and never more than MAX_GRAZING_DAYS.
+ */
 function wholeDays(fieldAreaHa: number, dailyAreaHa: number): number {
+  if (fieldAreaHa / dailyAreaHa >= MAX_GRAZING_DAYS) return MAX_GRAZING_DAYS
   let days = Math.floor(fieldAreaHa / dailyAreaHa)
   if ((days + 1) * dailyAreaHa <= fieldAreaHa) days += 1
   while (days > 0 && days * dailyAreaHa > fieldAreaHa) days -= 1
@@ -85,6 +89,7 @@ function plan(
   const lastStripDays = daysOfGrazing - fullStrips * p.daysPerMove
   const warnings: string[] = []
   if (stripAreaHa > p.fieldAreaHa) warnings.push('one strip needs more than the whole field')
+  if (daysOfGrazing === MAX_GRAZING_DAYS) warnings.push(`the field outlasts ${MAX_GRAZING_DAYS} days at this rate; days are reported at that cap`)
   return {
     basis,
     stripAreaHa,
@@ -152,8 +157,8 @@ export const wholeFieldInputSchema = z.object({
 export const wholeFieldPlanSchema = z.object({
   daysOfGrazing: z.number().int(),
   exactDays: z.number(),
-  endDate: isoDateSchema,
-  lastGrazingDate: isoDateSchema.nullable(),
+  endDate: isoDateOutSchema,
+  lastGrazingDate: isoDateOutSchema.nullable(),
 })
 /**
  * Whole-field access: days = field × available DM × utilization ÷ (head × intake), with the lower utilization
@@ -204,7 +209,7 @@ export function compareAccess(input: z.input<typeof compareAccessInputSchema>) {
 
 export const stripMoveSchema = z.object({
   index: z.number().int(),
-  startDate: isoDateSchema,
+  startDate: isoDateOutSchema,
   days: z.number().int(),
   /** Fence position before and after this move, measured from the starting (water) end. */
   fromM: z.number(),

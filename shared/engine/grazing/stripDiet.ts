@@ -1,6 +1,6 @@
 // Diet by day within a multi-day strip: stock take grain and leaf first, so quality falls until the next move.
 import { z } from 'zod'
-import { fraction, isoDateSchema, percent, positive, positiveFraction, type Cited } from './common'
+import { fraction, isoDateOutSchema, isoDateSchema, percent, positive, positiveFraction, type Cited } from './common'
 import { addDays } from './dates'
 import { componentKindSchema } from './field'
 
@@ -64,7 +64,7 @@ export type StripDietInput = z.input<typeof stripDietInputSchema>
 
 export const stripDietDaySchema = z.object({
   day: z.number().int(),
-  date: isoDateSchema.nullable(),
+  date: isoDateOutSchema.nullable(),
   intakeKgDm: z.number(),
   cpPctDm: z.number(),
   tdnPctDm: z.number(),

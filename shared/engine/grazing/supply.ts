@@ -1,6 +1,6 @@
 // What a field supplies on a date: dry matter and quality of each component after winter weathering.
 import { z } from 'zod'
-import { isoDateSchema } from './common'
+import { isoDateOutSchema, isoDateSchema } from './common'
 import { DAYS_PER_MONTH, dayNumber } from './dates'
 import {
   componentKindSchema,
@@ -21,7 +21,7 @@ import {
 
 export const componentSupplySchema = z.object({
   kind: componentKindSchema,
-  measuredOn: isoDateSchema,
+  measuredOn: isoDateOutSchema,
   /** The figure as entered, on its own basis. */
   measuredKgDmPerHa: z.number(),
   /** Share of the field's area that figure applies to (legume: its share of the width). */
@@ -40,7 +40,7 @@ export type ComponentSupply = z.infer<typeof componentSupplySchema>
 
 export const fieldSupplySchema = z.object({
   fieldId: z.string(),
-  date: isoDateSchema,
+  date: isoDateOutSchema,
   components: z.array(componentSupplySchema),
   totalKgDmPerHa: z.number(),
   /** Whole-field total, kg DM. */

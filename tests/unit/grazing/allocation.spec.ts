@@ -245,3 +245,17 @@ describe('whole field against strips', () => {
     expect(w.endDate).toBe('2026-01-18')
   })
 })
+
+describe('plans that outlast any season', () => {
+  it('when one head would take more than 100 years to graze the field, then days stop at the cap, the end date stays a real date and the plan warns', () => {
+    const p = stripPlan({ headCount: 1, intakeKgDmPerHead: 0.5, availableKgDmPerHa: 6446, utilization: 0.45, fieldAreaHa: 500, fenceLengthM: 5, start: '2026-03-15' })
+    expect(p.daysOfGrazing).toBe(36_525)
+    expect(p.exactDays).toBeGreaterThan(36_525)
+    // 2026-03-15 to 2126-03-15 is 36,524 days (24 leap days: 2100 is not a leap year), so the cap lands a day later.
+    expect(p.endDate).toBe('2126-03-16')
+    expect(p.warnings.some((w) => w.includes('cap'))).toBe(true)
+  })
+  it('when a date falls outside 1900–2199, then a ZodError names it', () => {
+    expectZodErrorAt(() => stripPlan({ headCount: 1, intakeKgDmPerHead: 1, availableKgDmPerHa: 1000, utilization: 0.5, fieldAreaHa: 1, fenceLengthM: 5, start: '9999-12-31' }), ['start'])
+  })
+})
