@@ -23,7 +23,7 @@ export const positiveFraction = () => z.number().gt(0).max(1)
 export const percent = () => z.number().min(0).max(100)
 
 /**
- * How a figure is known, as labelled in the project's science notes:
+ * How a figure is known:
  * read = seen in the named source; derived = arithmetic on read figures or unit definitions;
  * from memory = recalled, not verified; common practice = a rule of thumb of the trade;
  * default = no published value exists, a setting the user is expected to change.

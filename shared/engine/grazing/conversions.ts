@@ -23,7 +23,7 @@ export function kgPerHaToSorghumBuPerAcre(kgPerHa: number): number {
   return (kgPerHa * HA_PER_ACRE) / SORGHUM_BU_KG
 }
 
-/** Per-hectare count or rate → per-acre (e.g. animal-days/ha → animal-days/ac). */
+/** Per-hectare count or rate → per-acre (e.g. animal-days/ha → animal-days/ac), with the NIST SP 811 acre. */
 export function perHaToPerAcre(v: number): number {
   return v * HA_PER_ACRE
 }
@@ -62,7 +62,10 @@ export const NO3_PER_NO3N_MOLAR = NO3_G_PER_MOL / N_G_PER_MOL
 export type NitrateReportUnit = 'ppm-NO3-N' | 'ppm-NO3' | 'pct-NO3-N' | 'pct-NO3'
 export const NITRATE_REPORT_UNITS: readonly NitrateReportUnit[] = ['ppm-NO3-N', 'ppm-NO3', 'pct-NO3-N', 'pct-NO3']
 
-/** Any nitrate result → ppm NO3-N (1 % = 10,000 ppm by definition of the units). */
+/**
+ * Any nitrate result → ppm NO3-N: NO3 ÷ 4.4266 (molar-mass ratio; the lab factor is 4.43, B. Anderson, UNL, via Dairy
+ * Herd [read]), and 1 % = 10,000 ppm by definition of the units.
+ */
 export function nitrateToPpmNo3N(value: number, unit: NitrateReportUnit): number {
   switch (unit) {
     case 'ppm-NO3-N':
@@ -76,7 +79,7 @@ export function nitrateToPpmNo3N(value: number, unit: NitrateReportUnit): number
   }
 }
 
-/** Convert a nitrate result between any two reporting units. */
+/** Convert a nitrate result between any two reporting units (same factors as {@link nitrateToPpmNo3N}). */
 export function convertNitrate(value: number, from: NitrateReportUnit, to: NitrateReportUnit): number {
   const n = nitrateToPpmNo3N(value, from)
   switch (to) {

@@ -33,7 +33,7 @@ export const LEGUME_NITROGEN_PUBLISHED: readonly PublishedNitrogenFigure[] = [
   { legume: 'soybean', measure: 'credit-to-next-crop', low: 20, high: 60, unit: 'lb N/ac', context: 'soybean before corn, by state system; largely a rotation effect', source: 'agprofessional, "The science behind N credit for soybeans"', evidence: 'read' },
 ]
 
-/** A published figure in kg N/ha (lb/ac converted with NIST units); null for shares in %. */
+/** A published figure in kg N/ha (lb/ac converted with NIST SP 811 pound and acre); null for shares in %. */
 export function nitrogenFigureKgPerHa(f: PublishedNitrogenFigure): { low: number; high: number } | null {
   if (f.unit === '%') return null
   if (f.unit === 'kg N/ha') return { low: f.low, high: f.high }
@@ -55,7 +55,9 @@ export const nitrogenCreditInputSchema = z.object({
 })
 /**
  * Value of the legume's nitrogen credit at the user's fertilizer price: credit × price per area. The credit is an
- * input; published figures (LEGUME_NITROGEN_PUBLISHED) sit beside it for reference.
+ * input, as the published credits depend on state system and crop sequence (20–60 lb N/ac for soybean before corn,
+ * agprofessional; UNL Upper Big Blue recommendations) [read]; published figures (LEGUME_NITROGEN_PUBLISHED) sit
+ * beside it for reference.
  */
 export function legumeNitrogenCredit(input: z.input<typeof nitrogenCreditInputSchema>): { valuePerHa: number; valueForField: number; kgNForField: number } {
   const p = nitrogenCreditInputSchema.parse(input)

@@ -159,12 +159,15 @@ export const grazingGroupSchema = z.object({
 export type GrazingGroup = z.infer<typeof grazingGroupSchema>
 export type GrazingGroupInput = z.input<typeof grazingGroupSchema>
 
-/** Default basis of a component's per-hectare figure (see fieldComponentSchema.basis). */
+/** Default basis of a component's per-hectare figure: legume parts are clipped in their corridor (common practice). */
 export function defaultBasis(kind: ComponentKind): 'field' | 'band' {
   return kind.startsWith('legume') ? 'band' : 'field'
 }
 
-/** Share of the field's area a component's figure applies to. */
+/**
+ * Share of the field's area a component's figure applies to: a corridor legume counts only on its share of the width
+ * (clip each crop separately and record its share of the width, common practice).
+ */
 export function widthShare(field: Pick<GrazingField, 'legumeShareOfWidth'>, c: Pick<FieldComponent, 'kind' | 'basis'>): number {
   const basis = c.basis ?? defaultBasis(c.kind)
   if (basis === 'field') return 1

@@ -216,7 +216,10 @@ export const stripMoveSchema = z.object({
   toM: z.number(),
   areaHa: z.number(),
 })
-/** Each fence move of a strip plan in order, for a diagram that grows along the field and for the crew's day. */
+/**
+ * Each fence move of a strip plan in order, for a diagram that grows along the field and for the crew's day
+ * (derived from the strip plan; start at the water end, Jennings, Univ. of Arkansas, Hay & Forage Grower) [read].
+ */
 export function stripSchedule(planned: StripPlan, start: string, daysPerMove: number): z.infer<typeof stripMoveSchema>[] {
   const s = isoDateSchema.parse(start)
   const n = z.number().int().min(1).parse(daysPerMove)

@@ -44,7 +44,7 @@ export const DEFAULT_LEGUME_FORAGE_LOSS_AT_KILLING_FROST: Cited<number> = {
   evidence: 'default',
 }
 
-/** Rates for one component after the field's overrides are laid over the defaults. */
+/** Rates for one component: the field's overrides laid over WEATHERING_DEFAULTS (defaults, no published rate). */
 export function weatheringRateFor(kind: ComponentKind, settings?: WeatheringSettings): { rate: WeatheringRate; isDefault: boolean } {
   const base = WEATHERING_DEFAULTS[kind].value
   const over = settings?.rates?.[kind]
@@ -57,12 +57,15 @@ export function weatheringRateFor(kind: ComponentKind, settings?: WeatheringSett
   return { rate, isDefault }
 }
 
-/** Remaining share of dry matter after `months` at a compounding monthly loss. */
+/**
+ * Remaining share of dry matter after `months` at a compounding monthly loss, the form in which van Pletzen et al.
+ * 1991's 21 % over ≈3 months becomes ≈7.6 %/month (derived).
+ */
 export function massRetained(dmLossPerMonth: number, months: number): number {
   return Math.pow(1 - dmLossPerMonth, Math.max(0, months))
 }
 
-/** Quality after weathering, never below zero. */
+/** Quality after weathering: CP and TDN fall linearly by the monthly drops (defaults; see WEATHERING_DEFAULTS), never below zero. */
 export function weatheredQuality(q: ComponentQuality, rate: WeatheringRate, months: number): ComponentQuality {
   const m = Math.max(0, months)
   return {
@@ -125,7 +128,7 @@ export const BOOK_QUALITY = {
   },
 } as const satisfies Record<string, ComponentQuality>
 
-/** Book quality for a component on a field with the given legume. */
+/** Book quality for a component on a field with the given legume; each value carries its source (BOOK_QUALITY). */
 export function bookQuality(kind: ComponentKind, legume: CorridorLegume): ComponentQuality {
   switch (kind) {
     case 'sorghum-grain':

@@ -216,7 +216,7 @@ export const sampleSpreadSchema = z.object({
 })
 export type SampleSpread = z.infer<typeof sampleSpreadSchema>
 
-/** Mean, sample standard deviation, coefficient of variation, min and max of several measurements. */
+/** Mean, sample standard deviation (n − 1, the textbook definition), coefficient of variation, min and max. */
 export function sampleSpread(values: readonly number[]): SampleSpread {
   const xs = z.array(z.number()).min(1).parse(values)
   const n = xs.length

@@ -24,7 +24,7 @@ describe('frostWait', () => {
   const day = (n: number) => addDays('2025-10-20', n)
   const frosts = { partialFrostDates: [day(0), day(3)], killingFrostDates: [day(10)] }
 
-  it('UNL BeefWatch 2024 rule, science note check C30: frosts on days 0 (partial), 3 (partial) and 10 (killing) → first grazing day 17', () => {
+  it('UNL BeefWatch 2024 rule (Drewnoski & Redfearn), worked example (derived): frosts on days 0 (partial), 3 (partial) and 10 (killing) → first grazing day 17', () => {
     for (let n = 0; n <= 16; n++) expect(frostWait({ ...frosts, date: day(n) }).blocked).toBe(true)
     expect(frostWait({ ...frosts, date: day(17) }).blocked).toBe(false)
     expect(frostWait({ ...frosts, date: day(12) }).firstGrazingDate).toBe(day(17))
@@ -89,11 +89,11 @@ describe('nitrate units', () => {
 })
 
 describe('nitrateGuidance (Clemson Agricultural Service Laboratory bands)', () => {
-  it('Clemson ASL, science note C27: 1,200 ppm NO3-N for a pregnant cow → at most 50 % of ration DM; no limit when not pregnant', () => {
+  it('Clemson Agricultural Service Laboratory nitrate guidelines: 1,200 ppm NO3-N for a pregnant cow → at most 50 % of ration DM; no limit when not pregnant', () => {
     expect(nitrateGuidance({ value: 1200, unit: 'ppm-NO3-N', pregnant: true })).toMatchObject({ maxDietSharePct: 50, doNotFeed: false, severity: 'caution' })
     expect(nitrateGuidance({ value: 1200, unit: 'ppm-NO3-N' })).toMatchObject({ maxDietSharePct: null, severity: 'info' })
   })
-  it('Clemson ASL, science note C28: 4,500 ppm NO3-N → do not feed', () => {
+  it('Clemson Agricultural Service Laboratory nitrate guidelines: 4,500 ppm NO3-N → do not feed', () => {
     expect(nitrateGuidance({ value: 4500, unit: 'ppm-NO3-N' })).toMatchObject({ doNotFeed: true, maxDietSharePct: 0, severity: 'danger' })
   })
   it.each([
@@ -145,7 +145,7 @@ describe('grain hazards', () => {
     killingFrostDates: ['2025-10-25'],
   })
 
-  it('Merck Veterinary Manual ("Grain overload in ruminants", ≈10 kg kills unadapted cattle): whole-field access to a grain-heavy field is a danger for unadapted cattle', () => {
+  it('Merck Veterinary Manual ("Grain overload in ruminants", ≈10 kg kills unadapted cattle): whole-field access to a grain-heavy field is a danger for unadapted cattle (first-day diet from default preference weights)', () => {
     const cs = hazards(grainy, aGroup({ intakeKgDmPerHead: 14 }), '2025-12-01', { access: 'whole-field' })
     expect(find(cs, 'grain-overload')[0].severity).toBe('danger')
     expect(codes(cs)).toContain('grain-share')
@@ -193,7 +193,7 @@ describe('bloat', () => {
       { kind: 'sorghum-stover', kgDmPerHa: 1500, measuredOn: '2025-10-01', method: 'clipped-frame' },
     ],
   })
-  it('Alberta Agriculture "Grazing legumes and bloat"; Lehmkuhler (Univ. of Kentucky, >50 % legume): green legume above half the diet is a warning for cattle', () => {
+  it('Alberta Agriculture "Grazing legumes and bloat"; Lehmkuhler (Univ. of Kentucky, >50 % legume): green legume above half the diet is a warning for cattle (first-day diet from default preference weights)', () => {
     const b = find(hazards(lush, aGroup(), '2025-10-05'), 'bloat')[0]
     expect(b.severity).toBe('warning')
     expect(b.message).toContain('dry roughage')
@@ -211,7 +211,7 @@ describe('bloat', () => {
 
 describe('copper for sheep', () => {
   const ewes = aGroup({ id: 'ewes', name: 'Test ewes', species: 'sheep', headCount: 200, bodyWeightKg: 70, intakeKgDmPerHead: 2 })
-  it('Duncan, In Practice 19(9):503, science note C32: sheep diet copper 18 ppm is above the ≈15 ppm estimated maximum → warning', () => {
+  it('Duncan, In Practice 19(9):503: sheep diet copper 18 ppm is above the ≈15 ppm estimated maximum → warning', () => {
     expect(find(hazards(aField(), { ...ewes, dietCopperPpmDm: 18 }, '2025-12-01'), 'copper-sheep').map((c) => c.severity)).toEqual(['info', 'warning'])
   })
   it('Church & Pond 1988 via Berger (Univ. of Illinois): 12 ppm is a caution; 8 ppm only the standing reminder', () => {

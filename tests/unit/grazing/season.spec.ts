@@ -41,7 +41,7 @@ describe('seasonBudget', () => {
     expect(b.costPerHeadPerDay).toBeCloseTo(b.totalSupplementCost / (80 * 150), 12)
   })
 
-  it('weathering (default rates) uses the field up sooner than a field that does not weather', () => {
+  it('weathering at the default rates (no published rate exists) uses the field up sooner than a field that does not weather', () => {
     const weathered = seasonBudget(aSeasonPlan({ end: '2026-05-01' }))
     const still = seasonBudget(aSeasonPlan({ fields: [steady], end: '2026-05-01' }))
     expect(weathered.daysFullyFed).toBeLessThan(still.daysFullyFed)
@@ -97,7 +97,7 @@ describe('seasonBudget', () => {
     expect(two.byGroup).toHaveLength(2)
   })
 
-  it('Davis (Univ. of Missouri) and Jennings (Univ. of Arkansas): whole-field access shortens the season against daily strips', () => {
+  it('Davis (Univ. of Missouri) and Jennings (Univ. of Arkansas): whole-field access shortens the season against daily strips (whole-field 32.5 % utilization, common practice)', () => {
     const strips = seasonBudget(aSeasonPlan({ fields: [steady], end: '2026-05-01' }))
     const whole = seasonBudget(
       aSeasonPlan({ fields: [steady], end: '2026-05-01', assignments: [{ groupId: 'group-a', fieldId: 'field-a', from: '2025-11-15', to: '2026-05-01', access: 'whole-field' }] }),

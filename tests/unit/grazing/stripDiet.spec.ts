@@ -9,7 +9,7 @@ const legume = { kind: 'legume-forage' as const, kgDmPerHa: 800, quality: { cpPc
 const components = [grain, stover, legume]
 
 describe('stripDietByDay', () => {
-  it('in a 7-day strip, TDN and grain share fall every day from the first to the last (R. Lee, Univ. of Missouri: heads go first)', () => {
+  it('in a 7-day strip, TDN and grain share fall every day from the first to the last (default preference weights; order from R. Lee, Univ. of Missouri: heads go first)', () => {
     const d = stripDietByDay({ intakeKgDmPerHead: 12, daysPerMove: 7, utilization: 0.6, components, start: '2025-12-01' })
     expect(() => stripDietSchema.parse(d)).not.toThrow()
     expect(d.days).toHaveLength(7)
@@ -29,7 +29,7 @@ describe('stripDietByDay', () => {
     expect(eaten).toBeCloseTo(60, 9)
   })
 
-  it('with a daily move, the single day is the same diet every day, between the first and last day of a 7-day strip', () => {
+  it('with a daily move, the single day is the same diet every day, between the first and last day of a 7-day strip (default preference weights)', () => {
     const daily = stripDietByDay({ intakeKgDmPerHead: 12, daysPerMove: 1, utilization: 0.75, components })
     const week = stripDietByDay({ intakeKgDmPerHead: 12, daysPerMove: 7, utilization: 0.6, components })
     expect(daily.days).toHaveLength(1)
@@ -52,7 +52,7 @@ describe('stripDietByDay', () => {
     expect(d.meanTdnPctDm).toBeCloseTo((4800 * 82 + 5000 * 54 + 800 * 62) / total, 9)
   })
 
-  it('K-State "Crop residues" Table 1 midpoints: leaf CP is ≈1.96 × stem CP and leaf TDN ≈1.09 × stem TDN (derived)', () => {
+  it('K-State "Crop residues" Table 1 midpoints: leaf CP is ≈1.96 × stem CP and leaf TDN ≈1.09 × stem TDN (derived); stover leaf share 0.4 (from memory)', () => {
     expect(LEAF_TO_STEM_RATIO.cp).toBeCloseTo(1.961, 3)
     expect(LEAF_TO_STEM_RATIO.tdn).toBeCloseTo(1.089, 3)
     const d = stripDietByDay({ intakeKgDmPerHead: 10, daysPerMove: 3, utilization: 0.6, components: [stover] })

@@ -31,7 +31,7 @@ describe('rowLengthForThousandthAcreFt', () => {
     [38, 13.756],
     [40, 13.068],
     [60, 8.712],
-  ])('when rows are %i in apart, then 1/1000 acre is %f ft of row (derived from NIST acre; science note §1.1 table)', (w, ft) => {
+  ])('when rows are %i in apart, then 1/1000 acre is %f ft of row (derived from the NIST SP 811 acre; 30 in matches K-State eUpdate 461)', (w, ft) => {
     expect(rowLengthForThousandthAcreFt(w)).toBeCloseTo(ft, 3)
   })
 
@@ -44,7 +44,7 @@ describe('rowLengthForThousandthAcreFt', () => {
     [30, 17, 5.1],
     [40, 13, 0.8],
     [60, 8, 8.5],
-  ])('when rows are %i in, then the length is %i ft %f in (derived, science note §1.1 table)', (w, ft, inch) => {
+  ])('when rows are %i in, then the length is %i ft %f in (derived from the NIST SP 811 acre)', (w, ft, inch) => {
     const L = rowLengthForThousandthAcreFt(w)
     expect(Math.floor(L)).toBe(ft)
     expect((L - Math.floor(L)) * 12).toBeCloseTo(inch, 1)
@@ -98,7 +98,7 @@ describe('grainYieldFromHeads', () => {
     expect(r.buPerAcre).toBeCloseTo(119.05, 2)
   })
 
-  it('SI outputs agree with NIST pound and acre: kg/ha = lb/ac × 0.45359237 ÷ 0.40468564224', () => {
+  it('SI outputs agree with NIST pound and acre: kg/ha = lb/ac × 0.45359237 ÷ 0.40468564224; grain DM at the 14 % moisture basis (from memory)', () => {
     const r = grainYieldFromHeads(input)
     expect(r.kgPerHa).toBeCloseTo((r.lbPerAcre * LB_KG) / 0.40468564224, 8)
     expect(r.kgDmPerHa).toBeCloseTo(r.kgPerHa * 0.86, 8)
@@ -154,7 +154,7 @@ describe('clipPlotDm', () => {
     [{ frameAreaFt2: 1 }, 9603],
     [{ frameAreaFt2: 2.4 }, 4001],
     [{ frameAreaM2: 1 }, 892],
-  ])('when 100 dry g come from a %o frame, then the field has ≈%i lb DM/ac (derived from NIST units, science note C9)', (frame, lb) => {
+  ])('when 100 dry g come from a %o frame, then the field has ≈%i lb DM/ac (derived from NIST SP 811 units)', (frame, lb) => {
     const r = clipPlotDm({ ...frame, wetG: 300, dryG: 100 })
     expect(Math.round(r.lbDmPerAcre)).toBe(lb)
   })
