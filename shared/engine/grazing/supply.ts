@@ -77,7 +77,10 @@ export function supplyOfParsedField(field: GrazingField, date: string): FieldSup
     const share = widthShare(field, c)
     const kgDmPerHa = c.kgDmPerHa * share * retained
     const base = c.quality ?? bookQuality(c.kind, field.legume)
-    const quality = weatheredQuality(base, rate, months)
+    // A lab result ages from the day it was sampled, which may differ from the day the mass was measured.
+    const sampled = c.quality?.source.sampledOn
+    const qualityMonths = sampled === undefined ? months : Math.max(0, day - dayNumber(sampled)) / DAYS_PER_MONTH
+    const quality = weatheredQuality(base, rate, qualityMonths)
     if (!c.quality) notes.add(`${c.kind}: no lab result, book value used (${base.source.label})`)
     if (isDefault && months > 0) notes.add(`${c.kind}: weathering at the default rate (no published rate exists)`)
     byKind[c.kind] += kgDmPerHa

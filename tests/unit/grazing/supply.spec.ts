@@ -48,7 +48,8 @@ describe('fieldSupply', () => {
 
   it('at the default rates (labelled default: no published rate exists) stover keeps ≈0.95² of its mass and loses ≈3 TDN points in 61 days (≈2 months)', () => {
     expect(Object.values(WEATHERING_DEFAULTS).every((d) => d.evidence === 'default')).toBe(true)
-    const f = aField({ components: [{ kind: 'sorghum-stover', kgDmPerHa: 1000, measuredOn: '2025-01-01', method: 'clipped-frame', quality: lab }] })
+    const sameDay = { ...lab, source: { ...lab.source, sampledOn: '2025-01-01' } }
+    const f = aField({ components: [{ kind: 'sorghum-stover', kgDmPerHa: 1000, measuredOn: '2025-01-01', method: 'clipped-frame', quality: sameDay }] })
     const days = 61
     const s = fieldSupply(f, '2025-03-03')
     const months = days / DAYS_PER_MONTH
@@ -108,6 +109,14 @@ describe('fieldSupply', () => {
     expect(s.components[1].qualityIsBookValue).toBe(false)
     expect(s.cpPctDm).toBeCloseTo((3000 * 11 + 1000 * 8) / 4000, 12)
     expect(s.tdnPctDm).toBeCloseTo((3000 * 80 + 1000 * 56) / 4000, 12)
+  })
+
+  it('a lab result ages from its own sample date: sampled a month after the mass was measured, it has lost a month less', () => {
+    const q = { cpPctDm: 8, tdnPctDm: 56, source: { kind: 'lab' as const, label: 'Test lab #124', sampledOn: '2025-02-01' } }
+    const f = aField({ components: [{ kind: 'sorghum-stover', kgDmPerHa: 1000, measuredOn: '2025-01-01', method: 'clipped-frame', quality: q }] })
+    const s = fieldSupply(f, '2025-03-01')
+    expect(s.components[0].quality.tdnPctDm).toBeCloseTo(56 - (1.5 * 28) / DAYS_PER_MONTH, 9)
+    expect(s.components[0].monthsWeathered).toBeCloseTo(59 / DAYS_PER_MONTH, 9)
   })
 
   it('asked for a date before the measurement, the figure stands as measured (no weathering backwards)', () => {
