@@ -46,8 +46,14 @@ async function waitFor(flag: Int32Array, index: number, notValue: number, deadli
   const rest = deadline - performance.now()
   if (rest <= 0) return Atomics.load(flag, index) !== notValue
   const w = waitAsync(flag, index, notValue, rest)
-  const r = w.async ? await w.value : w.value
-  return r !== 'timed-out'
+  if (!w.async) return w.value !== 'timed-out'
+  // An asynchronous atomic wait does not keep Node's event loop alive by itself; a timer does, for as long as the wait lasts.
+  const keepAlive = setTimeout(() => undefined, rest + 50)
+  try {
+    return (await w.value) !== 'timed-out'
+  } finally {
+    clearTimeout(keepAlive)
+  }
 }
 
 async function runNow(jobs: readonly LinearProgram[], deadline: number): Promise<LpOutcome[]> {

@@ -2,7 +2,7 @@
 import jsLpSolver from 'javascript-lp-solver'
 import highsLoader from 'highs'
 import type { Highs } from 'highs'
-import { dot, lexicographicTolerance, type LinearProgram, type LpOutcome } from './program'
+import { dot, lexicographicTolerance, secondaryAttained, type LinearProgram, type LpOutcome } from './program'
 
 type JsModel = Parameters<typeof jsLpSolver.Solve>[0]
 type JsResult = { feasible: boolean; result: number; bounded?: boolean; [k: string]: number | boolean | undefined }
@@ -55,7 +55,7 @@ function jsSolveOnce(lp: LinearProgram, objective: readonly number[], extraRow?:
 export function solveWithJsLp(lp: LinearProgram): LpOutcome {
   try {
     const first = jsSolveOnce(lp, lp.cost)
-    if (first.status !== 'optimal' || !lp.secondary) return first
+    if (first.status !== 'optimal' || !lp.secondary || secondaryAttained(lp, first.x)) return first
     const second = jsSolveOnce(lp, lp.secondary, { coefs: lp.cost, upper: first.objective + lexicographicTolerance(first.objective) })
     if (second.status !== 'optimal') return first
     return { status: 'optimal', x: second.x, objective: dot(lp.cost, second.x) }
@@ -147,7 +147,7 @@ export function solveWithHighs(lp: LinearProgram): LpOutcome {
   const h = highs
   try {
     const first = highsSolveOnce(h, lp, lp.cost)
-    if (first.status !== 'optimal' || !lp.secondary) return first
+    if (first.status !== 'optimal' || !lp.secondary || secondaryAttained(lp, first.x)) return first
     const second = highsSolveOnce(h, lp, lp.secondary, { coefs: lp.cost, upper: first.objective + lexicographicTolerance(first.objective) })
     if (second.status !== 'optimal') return first
     return { status: 'optimal', x: second.x, objective: dot(lp.cost, second.x), rowDual: first.rowDual, colDual: first.colDual }

@@ -12,6 +12,11 @@ export interface LinearProgram {
    * Ties of the first objective are then broken by the second.
    */
   secondary?: number[]
+  /**
+   * A bound the second objective can never go below (e.g. minus the most field DM the animal could eat). When the first answer
+   * already reaches it, that answer is also lexicographically optimal and the second solve is skipped.
+   */
+  secondaryFloor?: number
 }
 export interface LpRow {
   name: string
@@ -28,9 +33,16 @@ export type LpOutcome =
 
 export type SolverName = 'javascript-lp-solver' | 'highs'
 
-/** Allowed slack of the first objective when the second breaks ties: relative 1e-9 with an absolute floor. */
+/** Allowed slack of the first objective when the second breaks ties: 1e-10 relative, with an absolute floor of 1e-10. */
 export function lexicographicTolerance(objective: number): number {
-  return 1e-9 * Math.max(1, Math.abs(objective))
+  return 1e-10 * Math.max(1, Math.abs(objective))
+}
+
+/** True when the first-stage answer already attains the second objective's floor, so no second solve can improve it. */
+export function secondaryAttained(lp: LinearProgram, x: readonly number[]): boolean {
+  if (!lp.secondary) return true
+  if (lp.secondaryFloor === undefined) return false
+  return dot(lp.secondary, x) <= lp.secondaryFloor + 1e-9 * Math.max(1, Math.abs(lp.secondaryFloor))
 }
 
 /** Feasibility tolerance for checking an answer: 1e-7 relative to the size of the terms involved. */

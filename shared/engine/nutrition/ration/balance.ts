@@ -122,6 +122,41 @@ function conflictsInWords(r: RationLp, o: LpOutcome & { status: 'optimal' }, ctx
   return out
 }
 
+/**
+ * When even the least-shortfall LP has no solution, only hard limits and feed minimums are to blame: a deletion filter (drop each
+ * labelled limit in turn, keep it dropped if the LP stays infeasible) leaves an irreducible set, named in words. HiGHS answers.
+ */
+function explainHardConflict(r: RationLp): string[] {
+  const lp = r.lp
+  const active = {
+    rows: r.rowLimit.map((l) => l !== null),
+    cols: r.colLimit.map((l, j) => l !== null && lp.colLower[j] > 0),
+  }
+  const withRelaxed = (): LinearProgram => ({
+    ...lp,
+    secondary: undefined,
+    rows: lp.rows.map((row, i) => (r.rowLimit[i] && !active.rows[i] ? { ...row, lower: -Infinity, upper: Infinity } : row)),
+    colLower: lp.colLower.map((v, j) => (r.colLimit[j] && !active.cols[j] ? 0 : v)),
+  })
+  const feasible = () => solveWithHighs(withRelaxed()).status === 'optimal'
+  for (let i = 0; i < active.rows.length; i++) {
+    if (!active.rows[i]) continue
+    active.rows[i] = false
+    if (feasible()) active.rows[i] = true
+  }
+  for (let j = 0; j < active.cols.length; j++) {
+    if (!active.cols[j]) continue
+    active.cols[j] = false
+    if (feasible()) active.cols[j] = true
+  }
+  const texts = new Set<string>()
+  r.rowLimit.forEach((l, i) => l && active.rows[i] && texts.add(l.text))
+  r.colLimit.forEach((l, j) => l && active.cols[j] && texts.add(l.text))
+  return [...texts]
+}
+
+const listWords = (xs: string[]) => (xs.length <= 1 ? xs.join('') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`)
+
 function densityOf(ctx: RationContext, i: number, n: Nutrient): number {
   return ctx.density[i][n]
 }
@@ -175,7 +210,8 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
     deficiencies = shortfalls(fieldOnly, fieldAns.outcome.x, ctx)
   } else {
     deficiencies = ctx.needs.map((n) => ({ nutrient: n.nutrient, shortBy: n.need, unit: NUTRIENT_UNIT[n.nutrient] }))
-    conflicts.push('The field feeds\' own minimum amounts cannot all be eaten within intake capacity and the limits.')
+    const why = explainHardConflict(fieldOnly)
+    conflicts.push(`From the field alone no diet can be formed: ${why.length ? listWords(why) : 'the limits'} cannot all hold at once.`)
   }
 
   let status: BalanceResult['status']
@@ -188,7 +224,7 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
     x = mainAns.outcome.x
     if (mainAns.solver === 'highs') duals = mainAns.outcome.rowDual
     const { kgDm } = feedIntakes(main, x, nFeeds)
-    status = p.feeds.some((f, i) => f.role !== 'field' && kgDm[i] > 1e-9) ? 'covered-with-supplement' : 'covered'
+    status = p.feeds.some((f, i) => f.role !== 'field' && kgDm[i] > 0) ? 'covered-with-supplement' : 'covered'
   } else if (bestAns && bestLp && bestAns.outcome.status === 'optimal') {
     used = bestLp
     x = bestAns.outcome.x
@@ -200,7 +236,8 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
     x = new Array<number>(main.lp.colNames.length).fill(0)
     status = 'short'
     stillShort = ctx.needs.map((n) => ({ nutrient: n.nutrient, shortBy: n.need, unit: NUTRIENT_UNIT[n.nutrient] }))
-    conflicts.push('The feeds\' minimum amounts and the limits cannot all hold at once, so no diet could be formed.')
+    const why = bestLp ? explainHardConflict(bestLp) : []
+    conflicts.push(`No diet can be formed: ${why.length ? listWords(why) : 'the limits'} cannot all hold at once.`)
   }
 
   const { kgDm, kgDmForGain } = feedIntakes(used, x, nFeeds)

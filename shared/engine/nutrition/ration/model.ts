@@ -251,15 +251,21 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
   const feedCost = (j: number) => (isFeedCol(j) ? (feeds[colFeed[j]].costPerKgDm ?? 0) : 0)
   let cost: number[]
   let secondary: number[] | undefined
+  let secondaryFloor: number | undefined
   if (mode === 'cost') {
     cost = Array.from({ length: nCols }, (_, j) => feedCost(j))
-    secondary = Array.from({ length: nCols }, (_, j) => (isFeedCol(j) && feeds[colFeed[j]].role === 'field' ? -1 : 0))
+    const fieldCols = (j: number) => isFeedCol(j) && feeds[colFeed[j]].role === 'field'
+    secondary = Array.from({ length: nCols }, (_, j) => (fieldCols(j) ? -1 : 0))
+    if (!secondary.some((v) => v !== 0)) secondary = undefined
+    // The most field DM possible: intake capacity, or all the field feeds' availability if that is less.
+    const fieldMax = feeds.reduce((s, f, i) => (f.role === 'field' && included(i) ? s + (f.maxKgDm ?? Infinity) : s), 0)
+    secondaryFloor = -Math.min(ctx.capacity, fieldMax)
   } else {
     cost = Array.from({ length: nCols }, (_, j) => (colPool[j] === 'short' ? 1 / needOf.get(nutrientOfShortCol(shortCol, j))! : 0))
     secondary = costTieBreak ? Array.from({ length: nCols }, (_, j) => feedCost(j)) : undefined
   }
   const colNames = colFeed.map((i, j) => (i >= 0 ? `${feeds[i].id}:${colPool[j]}` : `short:${nutrientOfShortCol(shortCol, j)}`))
-  return { lp: { colNames, cost, colLower, colUpper, rows, secondary }, colFeed, colPool, needRow, shortCol, rowLimit, colLimit }
+  return { lp: { colNames, cost, colLower, colUpper, rows, secondary, secondaryFloor }, colFeed, colPool, needRow, shortCol, rowLimit, colLimit }
 }
 
 function nutrientOfShortCol(shortCol: RationLp['shortCol'], j: number): Nutrient {
@@ -267,7 +273,7 @@ function nutrientOfShortCol(shortCol: RationLp['shortCol'], j: number): Nutrient
   throw new Error(`column ${j} is not a shortfall column`)
 }
 
-/** kg DM of each feed from an LP answer (columns of a split feed added up), cleaned of round-off below 1e-10 kg. */
+/** kg DM of each feed from an LP answer (columns of a split feed added up), cleaned of solver round-off below 1e-8 kg (10 mg). */
 export function feedIntakes(r: RationLp, x: readonly number[], nFeeds: number): { kgDm: number[]; kgDmForGain: number[] } {
   const kgDm = new Array<number>(nFeeds).fill(0)
   const kgDmForGain = new Array<number>(nFeeds).fill(0)
@@ -276,7 +282,7 @@ export function feedIntakes(r: RationLp, x: readonly number[], nFeeds: number): 
     kgDm[i] += x[j]
     if (r.colPool[j] === 'g') kgDmForGain[i] += x[j]
   })
-  const clean = (v: number) => (Math.abs(v) < 1e-10 ? 0 : Math.max(0, v))
+  const clean = (v: number) => (Math.abs(v) < 1e-8 ? 0 : Math.max(0, v))
   return { kgDm: kgDm.map(clean), kgDmForGain: kgDmForGain.map(clean) }
 }
 
