@@ -89,10 +89,15 @@ async function lookups(operationId: number): Promise<Lookup> {
 
 const header = (h: string) => h.trim().toLowerCase().replace(/[\s-]+/g, '_')
 
+/** The file in 16 KB pieces, so the parser works through it a piece per turn of the event loop. */
+function* slices(buffer: Buffer, size = 16 * 1024) {
+  for (let i = 0; i < buffer.length; i += size) yield buffer.subarray(i, i + size)
+}
+
 async function checkUpload(u: LabUpload, buffer: Buffer) {
   const records: { line: number; record: Record<string, string> }[] = []
   let columns: string[] = []
-  const parser = Readable.from([buffer]).pipe(
+  const parser = Readable.from(slices(buffer)).pipe(
     parse({
       bom: true,
       columns: (h: string[]) => (columns = h.map(header)),
