@@ -15,6 +15,10 @@ export const sheepAnimalSchema = z
   })
   .strict()
   .superRefine((a, ctx) => {
+    const minWeight = a.class === 'growing-lamb' ? 10 : a.class === 'ewe-lamb' ? 20 : 30
+    if (a.bodyWeightKg < minWeight) {
+      ctx.addIssue({ code: 'custom', path: ['bodyWeightKg'], message: `A ${a.class} of under ${minWeight} kg is outside the table's range.` })
+    }
     if (a.class === 'ram' && a.stage !== 'maintenance' && a.stage !== 'flushing') {
       ctx.addIssue({ code: 'custom', path: ['stage'], message: 'A ram can only be at maintenance or flushing (pre-breeding).' })
     }
@@ -105,7 +109,7 @@ export function sheepRequirements(animal: SheepAnimal): Requirements {
   const bcs = a.bcs ?? 3
   if (a.class === 'ewe' || a.class === 'ewe-lamb') {
     if (bcs >= 4) {
-      weight -= SHEEP_WEIGHT_CLASS_STEP_KG
+      weight = Math.max(weight - SHEEP_WEIGHT_CLASS_STEP_KG, weight / 2)
       notes.push(`Body condition ${bcs}: fed at the next lower weight class (${weight} kg), per the table's footnote.`)
     } else if (bcs <= 2) {
       weight += SHEEP_WEIGHT_CLASS_STEP_KG

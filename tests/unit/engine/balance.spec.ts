@@ -1,0 +1,219 @@
+// Behaviour of balanceRation: status, least cost, ties, shortfalls in words, legume share, warnings, the solver guard.
+import { readFileSync } from 'node:fs'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import {
+  balanceRation,
+  balanceRations,
+  cattleRequirements,
+  LB_KG,
+  registerLpRunner,
+  registeredLpRunner,
+  sheepRequirements,
+  type LpRunner,
+  type RationProblem,
+  type Requirements,
+} from '../../../shared/engine/index'
+import { solveJobsWithJsLp } from '../../../shared/engine/nutrition/lp/adapter'
+import { closeServerLpRunner, registerServerLpRunner } from '../../../server/engine/lpRunner'
+import { cattleMineral, cowpea, dicalcium, problemOf, rangeCube, sorghumGrain, sorghumStover } from './helpers/feeds'
+import { independentLp, loadIndependentSolvers, solveWithGlpk, verifyDiet } from './helpers/independentLp'
+
+let serverRunner: LpRunner
+beforeAll(async () => {
+  await registerServerLpRunner({ warm: true })
+  serverRunner = registeredLpRunner()!
+  await loadIndependentSolvers()
+})
+afterAll(closeServerLpRunner)
+
+const lateGestationCow = cattleRequirements({ class: 'cow', bodyWeightKg: 1200 * LB_KG, matureWeightKg: 1200 * LB_KG, bcs: 5, pregnancyDay: 250, grazing: true })
+const kgOf = (r: Awaited<ReturnType<typeof balanceRation>>, id: string) => r.intakes.find((i) => i.feedId === id)!.kgDm
+const withReq = (r: Requirements, o: Partial<Requirements>): Requirements => ({ ...r, ...o })
+const dietOf = (p: RationProblem, r: Awaited<ReturnType<typeof balanceRation>>) => p.feeds.map((f) => kgOf(r, f.id))
+
+describe('balanceRation: a cow in late gestation on a sorghum field', () => {
+  it('when stover, grain and cowpea cover every need, then the status is covered, nothing is bought and she eats to capacity (ties go to the most field feed)', async () => {
+    const p = problemOf(lateGestationCow, [sorghumGrain(), sorghumStover(), cowpea(), rangeCube()], {
+      fieldOffer: [{ feedId: 'grain', shareOfDm: 0.3 }, { feedId: 'stover', shareOfDm: 0.55 }, { feedId: 'cowpea', shareOfDm: 0.15 }],
+      limits: { maxGrainShareOfDm: 0.35 },
+    })
+    const r = await balanceRation(p)
+    expect(r.status).toBe('covered')
+    expect(r.supplements).toEqual([])
+    expect(r.costPerHeadDay).toBe(0)
+    expect(r.deficiencies).toEqual([])
+    expect(r.intakes.reduce((s, i) => s + i.kgDm, 0)).toBeCloseTo(r.intakeCapacityKg, 6)
+    expect(verifyDiet(p, dietOf(p, r))).toEqual([])
+    expect(r.solver).toBe('javascript-lp-solver')
+  })
+
+  it('when stover alone is short of CP, then the field-alone deficiency is reported and the cheapest cube closes it, at the cost glpk.js finds', async () => {
+    const p = problemOf(lateGestationCow, [sorghumStover(), rangeCube()])
+    const r = await balanceRation(p)
+    expect(r.status).toBe('covered-with-supplement')
+    expect(r.deficiencies.map((d) => d.nutrient)).toContain('cp')
+    expect(r.supplements).toHaveLength(1)
+    expect(r.supplements[0].feedId).toBe('cube')
+    expect(r.supplements[0].kgAsFed).toBeCloseTo(r.supplements[0].kgDm / 0.9, 12)
+    const g = solveWithGlpk(independentLp(p))
+    expect(g.feasible && Math.abs(g.objective - r.costPerHeadDay)).toBeLessThan(1e-7)
+    expect(r.supply.find((s) => s.nutrient === 'cp')!.pctCovered).toBeGreaterThanOrEqual(100 - 1e-6)
+  })
+
+  it('when shadow prices are asked for, then HiGHS answers and each binding need\'s price equals the cost of one more unit of it by finite difference', async () => {
+    const feeds = [sorghumStover(), rangeCube()]
+    const r = await balanceRation(problemOf(lateGestationCow, feeds), { shadowPrices: true })
+    expect(r.solver).toBe('highs')
+    const binding = r.supply.filter((s) => (s.shadowPrice ?? 0) > 1e-9)
+    expect(binding.length).toBeGreaterThan(0)
+    const field: Record<string, keyof Requirements> = { tdn: 'tdnKg', nem: 'nemMcal', neg: 'negMcal', cp: 'cpKg', ca: 'caG', p: 'pG' }
+    for (const s of binding) {
+      const d = 1e-4 * s.need
+      const key = field[s.nutrient]
+      const bumped = withReq(lateGestationCow, { [key]: (lateGestationCow[key] as number) + d })
+      const r2 = await balanceRation(problemOf(bumped, feeds), { shadowPrices: true })
+      expect((r2.costPerHeadDay - r.costPerHeadDay) / d).toBeCloseTo(s.shadowPrice!, 4)
+    }
+    for (const s of r.supply) if (s.pctCovered > 100 + 1e-6) expect(s.shadowPrice).toBeCloseTo(0, 9)
+  })
+
+  it('when a low-quality forage cannot meet energy within intake, then the status is short, with what is still missing and the conflict named in words, never NaN', async () => {
+    const straw = sorghumStover({ id: 'straw', name: 'Weathered stalks', tdnPctDm: 42, cpPctDm: 3.5 })
+    const cube = rangeCube({ maxKgDm: 0.5 })
+    const p = problemOf(lateGestationCow, [straw, cube])
+    const r = await balanceRation(p)
+    expect(r.status).toBe('short')
+    expect(r.stillShort.map((s) => s.nutrient)).toContain('tdn')
+    expect(r.conflicts[0]).toMatch(/intake capacity/)
+    expect(r.conflicts[0]).toMatch(/Range cube 38 % CP \(at most 0\.5 kg DM\/day\)/)
+    expect(r.conflicts.join(' ')).toMatch(/energy density/)
+    expect(JSON.stringify(r)).not.toMatch(/NaN|Infinity|null,"conflicts":\[\]/)
+    expect(verifyDiet({ ...p, requirements: withReq(p.requirements, { tdnKg: 0, nemMcal: 0, cpKg: 0, caG: 0, pG: 0 }) }, dietOf(p, r))).toEqual([])
+  })
+
+  it('when the limits themselves collide (grain share 0 but a grain minimum), then the conflict names both', async () => {
+    const p = problemOf(lateGestationCow, [sorghumGrain({ minKgDm: 1 }), sorghumStover()], { limits: { maxGrainShareOfDm: 0 } })
+    const r = await balanceRation(p)
+    expect(r.status).toBe('short')
+    expect(r.conflicts.join(' ')).toMatch(/grain at most 0 % of diet DM/)
+    expect(r.conflicts.join(' ')).toMatch(/the minimum of Sorghum grain/)
+  })
+})
+
+describe('minLegumeShareForProtein (Pearson square between legume and the rest of the field, at intake capacity)', () => {
+  const req = withReq(lateGestationCow, { dmiKg: 10, cpKg: 0.9 })
+  it('when stover has 5 % CP and cowpea 17 %, then 9 % CP needs (9 − 5)/(17 − 5) = 1/3 cowpea', async () => {
+    const r = await balanceRation(problemOf(req, [sorghumStover({ cpPctDm: 5 }), cowpea()]))
+    expect(r.minLegumeShareForProtein).toBeCloseTo(1 / 3, 12)
+  })
+  it('when even the legume is below 9 % CP, then null; when the rest covers CP, then 0', async () => {
+    expect((await balanceRation(problemOf(req, [sorghumStover({ cpPctDm: 5 }), cowpea({ cpPctDm: 8 })]))).minLegumeShareForProtein).toBeNull()
+    expect((await balanceRation(problemOf(req, [sorghumStover({ cpPctDm: 10 }), cowpea()]))).minLegumeShareForProtein).toBe(0)
+  })
+})
+
+describe('warnings where harm is possible, each with its source and the usual caution', () => {
+  const ewe = sheepRequirements({ class: 'ewe', bodyWeightKg: 70, stage: 'late-gestation', litterSize: 2 })
+  it('when a cattle mineral is offered to ewes, then it is left out and flagged (Berger, Univ. of Illinois)', async () => {
+    const p: RationProblem = { species: 'sheep', requirements: ewe, feeds: [sorghumStover(), cowpea(), cattleMineral(), dicalcium()] }
+    const r = await balanceRation(p)
+    expect(kgOf(r, 'tmsalt')).toBe(0)
+    const w = r.warnings.find((x) => x.code === 'cattle-product-for-sheep')!
+    expect(w.source).toMatch(/Berger/)
+    expect(w.message).toMatch(/veterinarian, a licensed nutritionist and local regulations/)
+  })
+  it('when a sheep supplement carries copper, then the diet is held at 10 mg/kg Cu and a diet above it is flagged', async () => {
+    const hiCu = rangeCube({ id: 'cu', name: 'Copper-rich pellet', cuMgPerKgDm: 40, costPerKgDm: 0.2 })
+    const p: RationProblem = { species: 'sheep', requirements: ewe, feeds: [sorghumStover({ cuMgPerKgDm: 5 }), hiCu] }
+    const r = await balanceRation(p)
+    const total = r.intakes.reduce((s, i) => s + i.kgDm, 0)
+    expect((kgOf(r, 'stover') * 5 + kgOf(r, 'cu') * 40) / total).toBeLessThanOrEqual(10 + 1e-6)
+  })
+  it('when a pregnant cow eats a feed of 2,500 mg/kg NO3-N, then the Clemson band forbids it and the message gives both units', async () => {
+    const p = problemOf(lateGestationCow, [sorghumStover({ nitrateNPpmDm: 2500 }), rangeCube()], { context: { pregnant: true } })
+    const r = await balanceRation(p)
+    const w = r.warnings.find((x) => x.code === 'nitrate' && x.feedId === 'stover')!
+    expect(w.message).toMatch(/2500 mg\/kg NO3-N \(11067 mg\/kg NO3\)/)
+    expect(w.message).toMatch(/not for pregnant/)
+    expect(w.source).toMatch(/Clemson/)
+  })
+  it('when urea is offered, then it stays at most 1 % of DM and the warning cites the 1/3-of-N rule (Univ. of Kentucky)', async () => {
+    const urea = { id: 'urea', name: 'Feed-grade urea', role: 'supplement' as const, dmPct: 99, cpPctDm: 281, tdnPctDm: 0, isUrea: true, costPerKgDm: 0.5 }
+    const p = problemOf(lateGestationCow, [sorghumStover(), sorghumGrain(), urea])
+    const r = await balanceRation(p)
+    const total = r.intakes.reduce((s, i) => s + i.kgDm, 0)
+    expect(kgOf(r, 'urea')).toBeGreaterThan(0)
+    expect(kgOf(r, 'urea') / total).toBeLessThanOrEqual(0.01 + 1e-9)
+    expect(r.warnings.find((x) => x.code === 'urea')!.message).toMatch(/1\/3 of dietary N/)
+  })
+  it('when grain is in the diet without a grain-share limit, then a grain caution is given; with a limit, the grain share holds', async () => {
+    const p = problemOf(lateGestationCow, [sorghumGrain(), sorghumStover(), rangeCube()])
+    expect((await balanceRation(p)).warnings.map((w) => w.code)).toContain('grain-share-unset')
+    const r = await balanceRation({ ...p, limits: { maxGrainShareOfDm: 0.2 } })
+    const total = r.intakes.reduce((s, i) => s + i.kgDm, 0)
+    expect(kgOf(r, 'grain') / total).toBeLessThanOrEqual(0.2 + 1e-9)
+  })
+})
+
+describe('the solver guard', () => {
+  const p = problemOf(lateGestationCow, [sorghumStover(), rangeCube()])
+  const withRunner = async (runner: LpRunner | null, f: () => Promise<void>) => {
+    registerLpRunner(runner)
+    try {
+      await f()
+    } finally {
+      registerLpRunner(serverRunner)
+    }
+  }
+  it('when no runner is registered, then HiGHS answers at once and says so', async () =>
+    withRunner(null, async () => {
+      const t = performance.now()
+      const r = await balanceRation(p)
+      expect(performance.now() - t).toBeLessThan(1000)
+      expect(r.solverRuns.map((x) => x.fallbackReason)).toEqual(['no-runner', 'no-runner'])
+      expect(r.solver).toBe('highs')
+    }))
+  it('when the runner times out, then HiGHS re-solves and the result records the timeout', async () =>
+    withRunner({ name: 'late', run: async () => Promise.reject(Object.assign(new Error('late'), { name: 'AbortError' })) }, async () => {
+      const r = await balanceRation(p)
+      expect(r.solverRuns.map((x) => x.fallbackReason)).toEqual(['timeout', 'timeout'])
+      expect(r.warnings.map((w) => w.code)).toContain('solver-fallback')
+    }))
+  it('when the in-process answer breaks a constraint, then the check catches it and HiGHS answers', async () =>
+    withRunner({ name: 'wrong', run: async (jobs) => solveJobsWithJsLp(jobs).map((o) => (o.status === 'optimal' ? { ...o, x: o.x.map(() => 0) } : o)) }, async () => {
+      const r = await balanceRation(p)
+      expect(r.solverRuns.find((x) => x.lp === 'main')!.fallbackReason).toBe('failed-check')
+      expect(r.status).toBe('covered-with-supplement')
+    }))
+  it('when the in-process solver calls a feasible ration infeasible, then HiGHS re-solves it', async () =>
+    withRunner({ name: 'gloomy', run: async (jobs) => jobs.map(() => ({ status: 'infeasible' as const })) }, async () => {
+      const r = await balanceRation(p)
+      expect(r.solverRuns.find((x) => x.lp === 'main')!.fallbackReason).toBe('infeasible-claim')
+      expect(r.status).toBe('covered-with-supplement')
+    }))
+  it.each(['jslp-hang-1.json', 'jslp-hang-2.json'])(
+    'when javascript-lp-solver 1.0.3 never returns on a saved ration (%s), then the worker is stopped, HiGHS answers within 1 s and the next balance runs normally',
+    async (file) => {
+      const hang = JSON.parse(readFileSync(new URL(`./fixtures/${file}`, import.meta.url), 'utf8')) as RationProblem
+      const t = performance.now()
+      const r = await balanceRation(hang)
+      expect(performance.now() - t).toBeLessThan(1000)
+      expect(r.solverRuns.find((x) => x.lp === 'main')!.fallbackReason).toBe('timeout')
+      expect(verifyDiet(hang, dietOf(hang, r))).toEqual([])
+      // The replacement worker starts in the background; once it is up, the guarded path answers again.
+      await new Promise((res) => setTimeout(res, 800))
+      const next = await balanceRation(p)
+      expect(next.solver).toBe('javascript-lp-solver')
+    },
+    10_000,
+  )
+  it('balanceRations gives the same answers as one call per ration', async () => {
+    const problems = [p, problemOf(lateGestationCow, [sorghumGrain(), sorghumStover(), cowpea(), rangeCube()]), problemOf(lateGestationCow, [sorghumStover({ tdnPctDm: 40 })])]
+    const batch = await balanceRations(problems)
+    for (let k = 0; k < problems.length; k++) {
+      const one = await balanceRation(problems[k])
+      expect(batch[k].status).toBe(one.status)
+      expect(batch[k].costPerHeadDay).toBeCloseTo(one.costPerHeadDay, 9)
+    }
+  })
+})
