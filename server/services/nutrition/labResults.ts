@@ -2,7 +2,7 @@
 import { Op, type Sequelize, type Transaction } from 'sequelize'
 import { AppError } from '../../errors'
 import { Feed, LabResult, LabResultHistory, type LabChange } from '../../models/nutrition'
-import { Field } from '../../models/grazing'
+import { Field, FieldComponent } from '../../models/grazing'
 import type { User } from '../../models/index'
 import {
   labResultCreateSchema,
@@ -137,11 +137,27 @@ function describe(r: Pick<LabResult, 'labName' | 'sampleDate'>) {
   return `lab result from ${r.labName} of ${r.sampleDate}`
 }
 
+/**
+ * A field component reads its quality from one lab result (Fields keeps the link); a newer sample of that component
+ * becomes the one it reads, so a new analysis reaches the field's balances.
+ */
+export async function linkNewestToComponent(r: Pick<LabResult, 'id' | 'fieldId' | 'component' | 'sampleDate' | 'operationId'>, transaction?: Transaction) {
+  if (r.fieldId == null || r.component == null) return
+  const comp = await FieldComponent.findOne({ where: { fieldId: r.fieldId, kind: r.component }, transaction })
+  if (!comp) return
+  if (comp.labResultId != null && comp.labResultId !== r.id) {
+    const linked = await LabResult.findOne({ where: { id: comp.labResultId, operationId: r.operationId }, transaction, attributes: ['id', 'sampleDate'] })
+    if (linked && linked.sampleDate > r.sampleDate) return
+  }
+  if (comp.labResultId !== r.id) await comp.update({ labResultId: r.id }, { transaction })
+}
+
 export async function createLabResult(sequelize: Sequelize, operationId: number, user: User, body: unknown) {
   const v = parseWith(labResultCreateSchema, body)
   return sequelize.transaction(async (transaction) => {
     const feedName = await checkTarget(operationId, v, transaction)
     const r = await LabResult.create({ ...storedRow(v), operationId, uploadId: null, createdBy: user.id, updatedBy: user.id }, { transaction })
+    await linkNewestToComponent(r, transaction)
     const affected = await markFor(operationId, r, `A new ${describe(r)} was added.`, transaction)
     return { ...(await labView(r, { feedName, transaction })), affectedBalances: affected }
   })

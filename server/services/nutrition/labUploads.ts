@@ -16,7 +16,7 @@ import {
   type LabResultValues,
 } from '../../../shared/schemas/nutrition/labResults'
 import { parseWith } from './common'
-import { storedRow } from './labResults'
+import { linkNewestToComponent, storedRow } from './labResults'
 import { markBalancesOutOfDate } from './staleness'
 
 /** Rows checked between yields to the event loop, and progress writes. */
@@ -235,6 +235,7 @@ export async function confirmUpload(sequelize: Sequelize, operationId: number, u
           { transaction, returning: ['id'] },
         )
         ids.push(...created.map((c) => c.id))
+        for (const c of created) if (c.fieldId != null) await linkNewestToComponent(c, transaction)
         await yieldToLoop()
       }
       failedAt = null
