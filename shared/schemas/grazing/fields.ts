@@ -98,6 +98,9 @@ export const fieldEconomicsSchema = z.object({
   feedingPerHeadDay: num(0, 50, 'the feeding cost').default(0),
   feedPricePerKgDm: num(0, 50, 'the harvested feed price').default(0),
   feedWasteFraction: num(0, 0.9, 'the feed waste').default(0),
+  /** The group the comparison is costed for when no strip plan uses the field. */
+  headCount: z.number().int('Use a whole number of head.').min(1).max(100_000).nullable().default(null),
+  intakeKgDmPerHead: num(0.1, 40, 'the intake per head').nullable().default(null),
 })
 export type FieldEconomics = z.infer<typeof fieldEconomicsSchema>
 
