@@ -65,8 +65,8 @@ async function runNow(jobs: readonly LinearProgram[], deadline: number): Promise
   Atomics.store(s.flag, 0, seq)
   Atomics.notify(s.flag, 0)
   if (!(await waitFor(s.flag, 1, seq - 1, deadline))) {
-    // javascript-lp-solver can loop for ever; terminate stops even a busy loop, and the next call starts a fresh worker.
-    if (slot === s) slot = null
+    // javascript-lp-solver can loop for ever; terminate stops even a busy loop. The replacement starts now, ready in ~0.2 s.
+    if (slot === s) slot = spawn()
     void s.worker.terminate()
     throw new TimeoutError('LP solve timed out')
   }
@@ -90,6 +90,12 @@ const runner: LpRunner = {
 export async function registerServerLpRunner(options: { warm?: boolean } = {}): Promise<void> {
   registerLpRunner(runner)
   if (options.warm) await runner.run([], 10_000)
+}
+
+/** Resolves once the current (or a fresh) worker has loaded and waits for work. */
+export async function whenServerLpRunnerReady(timeoutMs = 10_000): Promise<void> {
+  slot ??= spawn()
+  if (!(await waitFor(slot.flag, 2, 0, performance.now() + timeoutMs))) throw new TimeoutError('LP worker did not start')
 }
 
 /** Stops the worker (tests call it in afterAll so the process can exit). */

@@ -105,7 +105,8 @@ export function milkYieldKg(week: number, peakKg: number, peakWeek = PEAK_WEEK):
 
 /** Retained energy for gain, Mcal/d = 0.0635 × EQEBW^0.75 × EBG^1.097 (NRC 1996 — from memory; consistent with the read inverse form, derived). */
 export function growthNeg(eqsbwKg: number, swgKg: number): number {
-  if (swgKg <= 0) return 0
+  // Gains under a gram a day are no gain (and would underflow the power law).
+  if (swgKg < 1e-3) return 0
   return 0.0635 * (0.891 * eqsbwKg) ** 0.75 * (0.956 * swgKg) ** 1.097
 }
 /** Shrunk weight gain from retained energy, SWG = 13.91 × RE^0.9116 × EQSBW^−0.6837 (quoted in a 2023 ASAS abstract — read). */

@@ -14,7 +14,7 @@ import {
   type Requirements,
 } from '../../../shared/engine/index'
 import { solveJobsWithJsLp } from '../../../shared/engine/nutrition/lp/adapter'
-import { closeServerLpRunner, registerServerLpRunner } from '../../../server/engine/lpRunner'
+import { closeServerLpRunner, registerServerLpRunner, whenServerLpRunnerReady } from '../../../server/engine/lpRunner'
 import { cattleMineral, cowpea, dicalcium, problemOf, rangeCube, sorghumGrain, sorghumStover } from './helpers/feeds'
 import { independentLp, loadIndependentSolvers, solveWithGlpk, verifyDiet } from './helpers/independentLp'
 
@@ -200,8 +200,8 @@ describe('the solver guard', () => {
       expect(performance.now() - t).toBeLessThan(1000)
       expect(r.solverRuns.find((x) => x.lp === 'main')!.fallbackReason).toBe('timeout')
       expect(verifyDiet(hang, dietOf(hang, r))).toEqual([])
-      // The replacement worker starts in the background; once it is up, the guarded path answers again.
-      await new Promise((res) => setTimeout(res, 800))
+      // The replacement worker starts at once in the background; once it is up, the guarded path answers again.
+      await whenServerLpRunnerReady()
       const next = await balanceRation(p)
       expect(next.solver).toBe('javascript-lp-solver')
     },

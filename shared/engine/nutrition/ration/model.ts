@@ -91,10 +91,12 @@ export function rationContext(p: ParsedRationProblem): RationContext {
   const allowed = p.feeds.map((f) => !(p.species === 'sheep' && f.cattleOnly))
   const checkCa = p.feeds.some((f) => f.caPctDm !== undefined)
   const checkP = p.feeds.some((f) => f.pPctDm !== undefined)
-  const split = p.species === 'cattle' && r.nemMcal !== undefined && (r.negMcal ?? 0) > 0
+  // Needs below a microgram or a microcalorie are nothing to balance (and would make the relative shortfall price blow up).
+  const TINY = 1e-9
+  const split = p.species === 'cattle' && r.nemMcal !== undefined && (r.negMcal ?? 0) > TINY
   const needs: NeedSpec[] = []
   const add = (nutrient: Nutrient, need: number | undefined) => {
-    if (need !== undefined && need > 0) needs.push({ nutrient, need })
+    if (need !== undefined && need > TINY) needs.push({ nutrient, need })
   }
   add('tdn', r.tdnKg)
   if (p.species === 'cattle') {
