@@ -101,7 +101,7 @@ function demoFields(start: string): { main: DemoField[]; client: DemoField[] } {
     {
       body: {
         name: 'East soybean corridor (demo)',
-        areaHa: 24 * AC,
+        areaHa: 16 * AC,
         fenceLengthM: ft(500),
         rowSpacingM: inch(60),
         corridorWidthM: inch(30),
@@ -111,7 +111,7 @@ function demoFields(start: string): { main: DemoField[]; client: DemoField[] } {
         partialFrostDates: partial,
         nitrate: { value: 1250, unit: 'ppm-NO3-N', sampledOn: measured },
         economics: { ...econ, nitrogenCreditKgNPerHa: lbAc(30) },
-        notes: 'Invented demo field: forage soybean in the corridor; shared by the bred heifers (from the water end) and the ewes (from the middle).',
+        notes: 'Invented demo field: forage soybean in the corridor; shared by the bred heifers (from the water end) and the ewes carrying twins (from the middle).',
         components: [{ kind: 'legume-seed', kgDmPerHa: lbAc(500), measuredOn: measured, method: 'visual' }],
       },
       worksheets: [heads(60, [66, 70, 61, 72, 68]), frames('sorghum-stover', 9.6, [[640, 420], [700, 455], [610, 400]]), frames('legume-forage', 2.4, [[330, 104], [360, 112], [310, 99]])],
@@ -119,7 +119,7 @@ function demoFields(start: string): { main: DemoField[]; client: DemoField[] } {
     {
       body: {
         name: 'South conventional rows (demo)',
-        areaHa: 30 * AC,
+        areaHa: 24 * AC,
         fenceLengthM: ft(800),
         rowSpacingM: inch(30),
         corridorWidthM: 0,
@@ -130,7 +130,7 @@ function demoFields(start: string): { main: DemoField[]; client: DemoField[] } {
         nitrate: { value: 1800, unit: 'ppm-NO3-N', sampledOn: measured },
         grainOnGround: { kgPerHa: (9 * 56 * LB_KG) / AC, observedOn: addDays(start, -5) },
         economics: { ...econ, nitrogenCreditKgNPerHa: 0 },
-        notes: 'Invented demo field: grain sorghum on 30-in rows, no legume; some heads lodged by wind.',
+        notes: 'Invented demo field: grain sorghum on 30-in rows, no legume; some heads lodged by wind. The steers start at the water end, the ewes with singles in the far strip.',
         components: [],
       },
       worksheets: [heads(30, [46, 50, 44, 52, 47]), frames('sorghum-stover', 9.6, [[780, 540], [820, 570], [760, 520]])],
@@ -186,21 +186,20 @@ async function seedField(sequelize: Sequelize, operationId: number, userId: numb
   return created.id
 }
 
-type DemoPlan = { match: string; body: PlanCreate; records?: boolean }
+type DemoPlan = { body: PlanCreate; records?: boolean }
 
 function demoPlans(start: string, fieldIds: Record<string, number>): { main: DemoPlan[]; client: DemoPlan[] } {
   const cattleMineral = { label: 'Cattle mineral (demo)', intendedFor: 'cattle' as const, copperPpm: 1200 }
   const main: DemoPlan[] = [
     {
-      match: 'cow',
       records: true,
       body: {
         fieldId: fieldIds['North cowpea corridor (demo)'],
         groupName: 'Spring-calving cows (demo)',
         species: 'cattle',
-        headCount: 80,
-        bodyWeightKg: 1250 * LB_KG,
-        intakeKgDmPerHead: 28.5 * LB_KG,
+        headCount: 120,
+        bodyWeightKg: 1200 * LB_KG,
+        intakeKgDmPerHead: 21.5 * LB_KG,
         pregnant: true,
         grainAdapted: true,
         mineral: cattleMineral,
@@ -213,14 +212,13 @@ function demoPlans(start: string, fieldIds: Record<string, number>): { main: Dem
       },
     },
     {
-      match: 'heifer',
       body: {
         fieldId: fieldIds['East soybean corridor (demo)'],
         groupName: 'Bred heifers (demo)',
         species: 'cattle',
         headCount: 35,
-        bodyWeightKg: 950 * LB_KG,
-        intakeKgDmPerHead: 23 * LB_KG,
+        bodyWeightKg: 900 * LB_KG,
+        intakeKgDmPerHead: 19 * LB_KG,
         pregnant: true,
         grainAdapted: true,
         mineral: cattleMineral,
@@ -233,35 +231,52 @@ function demoPlans(start: string, fieldIds: Record<string, number>): { main: Dem
       },
     },
     {
-      match: 'ewe',
       body: {
         fieldId: fieldIds['East soybean corridor (demo)'],
-        groupName: 'Ewes due in late winter (demo)',
+        groupName: 'Late-winter ewes, twins (demo)',
         species: 'sheep',
-        headCount: 120,
-        bodyWeightKg: 165 * LB_KG,
-        intakeKgDmPerHead: 4.6 * LB_KG,
+        headCount: 85,
+        bodyWeightKg: 155 * LB_KG,
+        intakeKgDmPerHead: 3.1 * LB_KG,
         pregnant: true,
         mineral: { label: 'Sheep mineral, no added copper (demo)', intendedFor: 'sheep', copperPpm: 8 },
         access: 'strip',
         daysPerMove: 3,
         basis: 'forage',
-        startDate: addDays(start, 7),
+        startDate: start,
         // The ewes take the back half: their first fence stands at the middle of the field.
-        startOffsetM: (24 * AC * 10_000) / ft(500) / 2,
+        startOffsetM: (16 * AC * 10_000) / ft(500) / 2,
         supplement: { label: 'Whole corn (demo price)', kgAsFedPerHeadPerDay: 0.5 * LB_KG, dmFraction: 0.86, pricePerKgAsFed: 0.11 },
         notes: 'Invented demo plan: 3-day strips in electric netting on the back half; water trailer moved with them.',
       },
     },
     {
-      match: 'steer',
+      body: {
+        fieldId: fieldIds['South conventional rows (demo)'],
+        groupName: 'Late-winter ewes, singles (demo)',
+        species: 'sheep',
+        headCount: 60,
+        bodyWeightKg: 155 * LB_KG,
+        intakeKgDmPerHead: 3.1 * LB_KG,
+        pregnant: true,
+        mineral: { label: 'Sheep mineral, no added copper (demo)', intendedFor: 'sheep', copperPpm: 8 },
+        access: 'strip',
+        daysPerMove: 3,
+        basis: 'forage',
+        startDate: start,
+        // The far seventh of the field, away from the steers' wire.
+        startOffsetM: ((24 * AC * 10_000) / ft(800)) * 0.85,
+        notes: 'Invented demo plan: 3-day strips in netting at the far end; stepped onto the grain over a week.',
+      },
+    },
+    {
       body: {
         fieldId: fieldIds['South conventional rows (demo)'],
         groupName: 'Weaned steer calves (demo)',
         species: 'cattle',
         headCount: 90,
         bodyWeightKg: 550 * LB_KG,
-        intakeKgDmPerHead: 15.5 * LB_KG,
+        intakeKgDmPerHead: 13 * LB_KG,
         access: 'strip',
         daysPerMove: 1,
         basis: 'forage',
@@ -273,7 +288,6 @@ function demoPlans(start: string, fieldIds: Record<string, number>): { main: Dem
   ]
   const client: DemoPlan[] = [
     {
-      match: 'cow',
       body: {
         fieldId: fieldIds['Home corridor field (demo)'],
         groupName: 'Client cows (demo)',
@@ -294,15 +308,18 @@ function demoPlans(start: string, fieldIds: Record<string, number>): { main: Dem
   return { main, client }
 }
 
+/** Words that tie a demo plan to the demo herd group of the same class. */
+const DEMO_LINK_KEYS = ['spring-calving', 'heifer', 'twin', 'single', 'steer', 'client cow']
+
 /** Links each demo plan to the demo herd group whose name carries its keyword, once the herd groups exist. */
 export async function linkGrazingDemoPlans(ids: DemoIds) {
   for (const operationId of [ids.operations.main, ids.operations.client]) {
     const herds = await Herd.findAll({ where: { operationId } })
     const plans = await GrazingPlan.findAll({ where: { operationId, herdId: null } })
     for (const p of plans) {
-      const key = ['cow', 'heifer', 'ewe', 'steer'].find((k) => p.groupName.toLowerCase().includes(k))
+      const key = DEMO_LINK_KEYS.find((k) => p.groupName.toLowerCase().includes(k))
       if (!key) continue
-      const herd = herds.find((h) => h.name.toLowerCase().includes(key) && (key !== 'cow' || !h.name.toLowerCase().includes('heifer')))
+      const herd = herds.find((h) => h.name.toLowerCase().includes(key))
       if (herd) await p.update({ herdId: herd.id })
     }
   }

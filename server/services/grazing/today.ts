@@ -27,7 +27,7 @@ export async function today(sequelize: Sequelize, operationId: number, date: str
     const fieldLengthM = (field.areaHa * 10_000) / field.fenceLengthM
     const base = {
       plan: { id: plan.id, groupName: plan.groupName, species: plan.species, headCount: plan.headCount, access: plan.access, daysPerMove: plan.daysPerMove, herdId: plan.herdId },
-      field: { id: field.id, name: field.name, fenceLengthM: field.fenceLengthM, fieldLengthM, areaHa: field.areaHa },
+      field: { id: field.id, name: field.name, fenceLengthM: field.fenceLengthM, fieldLengthM, areaHa: field.areaHa, legumeShareOfWidth: field.legumeShareOfWidth },
       records: recordJson.filter((r) => r.planId === plan.id),
       supplement: plan.supplement
         ? { label: plan.supplement.label, kgAsFedPerHead: plan.supplement.kgAsFedPerHeadPerDay, kgAsFedForGroup: plan.supplement.kgAsFedPerHeadPerDay * plan.headCount, source: plan.supplementSource ?? 'plan' }

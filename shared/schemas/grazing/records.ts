@@ -56,7 +56,7 @@ const moveSchema = z.object({ index: z.number(), startDate: z.string(), days: z.
 
 export const todayItemSchema = z.object({
   plan: z.object({ id: z.number(), groupName: z.string(), species: z.enum(['cattle', 'sheep']), headCount: z.number(), access: z.enum(['strip', 'whole-field']), daysPerMove: z.number(), herdId: z.number().nullable() }),
-  field: z.object({ id: z.number(), name: z.string(), fenceLengthM: z.number(), fieldLengthM: z.number(), areaHa: z.number() }),
+  field: z.object({ id: z.number(), name: z.string(), fenceLengthM: z.number(), fieldLengthM: z.number(), areaHa: z.number(), legumeShareOfWidth: z.number() }),
   status: z.enum(['not-started', 'grazing', 'finished', 'cannot-plan']),
   problem: z.string().nullable(),
   dayIndex: z.number(),
