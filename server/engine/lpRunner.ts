@@ -40,8 +40,8 @@ function spawn(): Slot {
   return { worker, port: port1, flag: new Int32Array(sab), seq: 0 }
 }
 
-async function waitFor(flag: Int32Array, index: number, notValue: number, deadline: number): Promise<boolean> {
-  const first = Math.min(SYNC_WAIT_MS, Math.max(0, deadline - performance.now()))
+async function waitFor(flag: Int32Array, index: number, notValue: number, deadline: number, block = true): Promise<boolean> {
+  const first = block ? Math.min(SYNC_WAIT_MS, Math.max(0, deadline - performance.now())) : 0
   if (Atomics.wait(flag, index, notValue, first) !== 'timed-out') return true
   const rest = deadline - performance.now()
   if (rest <= 0) return Atomics.load(flag, index) !== notValue
@@ -56,7 +56,7 @@ async function waitFor(flag: Int32Array, index: number, notValue: number, deadli
   }
 }
 
-async function runNow(jobs: readonly LinearProgram[], deadline: number): Promise<LpOutcome[]> {
+async function runNow(jobs: readonly LinearProgram[], deadline: number, block: boolean): Promise<LpOutcome[]> {
   slot ??= spawn()
   const s = slot
   if (Atomics.load(s.flag, 2) !== 1 && !(await waitFor(s.flag, 2, 0, deadline))) throw new TimeoutError('LP worker not ready in time')
@@ -64,7 +64,7 @@ async function runNow(jobs: readonly LinearProgram[], deadline: number): Promise
   s.port.postMessage({ seq, jobs })
   Atomics.store(s.flag, 0, seq)
   Atomics.notify(s.flag, 0)
-  if (!(await waitFor(s.flag, 1, seq - 1, deadline))) {
+  if (!(await waitFor(s.flag, 1, seq - 1, deadline, block))) {
     // javascript-lp-solver can loop for ever; terminate stops even a busy loop. The replacement starts now, ready in ~0.2 s.
     if (slot === s) slot = spawn()
     void s.worker.terminate()
@@ -77,10 +77,10 @@ async function runNow(jobs: readonly LinearProgram[], deadline: number): Promise
 
 const runner: LpRunner = {
   name: 'server-worker-thread',
-  run(jobs, timeoutMs) {
+  run(jobs, timeoutMs, options) {
     const deadline = performance.now() + timeoutMs
     // One request at a time per worker; time spent queued counts against the limit.
-    const result = queue.then(() => runNow(jobs, deadline))
+    const result = queue.then(() => runNow(jobs, deadline, !options?.background))
     queue = result.catch(() => undefined)
     return result
   },

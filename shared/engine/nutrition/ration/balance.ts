@@ -13,6 +13,7 @@ import {
   type BalanceOptions,
   type BalanceResult,
   type Nutrient,
+  type ParsedRationProblem,
   type RationProblem,
 } from './schema'
 
@@ -26,7 +27,9 @@ interface Prepared {
 }
 
 function prepare(problem: RationProblem): Prepared {
-  const p = rationProblemSchema.parse(problem)
+  return prepareParsed(rationProblemSchema.parse(problem))
+}
+function prepareParsed(p: ParsedRationProblem): Prepared {
   const ctx = rationContext(p)
   const fieldOnly = buildRationLp(ctx, p.feeds.map((f) => f.role === 'field'), 'shortfall')
   const main = buildRationLp(ctx, p.feeds.map(() => true), 'cost')
@@ -188,7 +191,7 @@ export function minLegumeShareForProtein(ctx: RationContext): number | null {
   return pearsonFractions(legumeCp, restCp, targetCp).fracA
 }
 
-function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: Answer | null, bestLp: RationLp | null, wantDuals: boolean): BalanceResult {
+function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: Answer | null, bestLp: RationLp | null): BalanceResult {
   const { ctx, fieldOnly, main } = prep
   const p = ctx.p
   const nFeeds = p.feeds.length
@@ -256,7 +259,8 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
       need: n.need,
       supplied,
       pctCovered: (100 * supplied) / n.need,
-      ...(wantDuals && duals && row !== undefined ? { shadowPrice: round(duals[row]) } : {}),
+      // Wherever HiGHS answered the least-cost LP, its row duals are the cost of one more unit of each need.
+      ...(duals && row !== undefined ? { shadowPrice: round(duals[row]) } : {}),
     }
   })
   const supplements = p.feeds
@@ -298,7 +302,7 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
   }
 }
 
-async function finish(prep: Prepared, fieldAns: Answer, mainAns: Answer, wantDuals: boolean): Promise<BalanceResult> {
+async function finish(prep: Prepared, fieldAns: Answer, mainAns: Answer): Promise<BalanceResult> {
   let bestAns: Answer | null = null
   let bestLp: RationLp | null = null
   if (mainAns.outcome.status !== 'optimal') {
@@ -308,7 +312,7 @@ async function finish(prep: Prepared, fieldAns: Answer, mainAns: Answer, wantDua
     const outcome = solveWithHighs(bestLp.lp)
     bestAns = { outcome, solver: 'highs', checkFailed: outcome.status === 'optimal' && checkLpSolution(bestLp.lp, outcome.x).length > 0 }
   }
-  return assemble(prep, fieldAns, mainAns, bestAns, bestLp, wantDuals)
+  return assemble(prep, fieldAns, mainAns, bestAns, bestLp)
 }
 
 /**
@@ -325,7 +329,7 @@ export async function balanceRation(problem: RationProblem, options?: BalanceOpt
   const runner = opt.solver === 'auto' ? registeredLpRunner() : null
   if (opt.shadowPrices || opt.solver === 'highs') {
     const [fieldAns, mainAns] = await settle([prep.fieldOnly.lp, prep.main.lp], null, 'requested')
-    return finish(prep, fieldAns, mainAns, true)
+    return finish(prep, fieldAns, mainAns)
   }
   let fromRunner: (LpOutcome | undefined)[] | null = null
   let reason: FallbackReason | null = runner ? null : 'no-runner'
@@ -337,7 +341,7 @@ export async function balanceRation(problem: RationProblem, options?: BalanceOpt
     }
   }
   const [fieldAns, mainAns] = await settle([prep.fieldOnly.lp, prep.main.lp], fromRunner, reason)
-  return finish(prep, fieldAns, mainAns, false)
+  return finish(prep, fieldAns, mainAns)
 }
 
 function isTimeout(e: unknown): boolean {
@@ -349,30 +353,39 @@ export const BATCH_CHUNK = 64
 
 /**
  * Balances many rations, sharing the runner's worker: problems go in chunks of 64 per round trip, each chunk under the same time
- * limit; a chunk that times out or fails falls back to HiGHS problem by problem. Same method and sources as `balanceRation`.
+ * limit, and while the worker solves one chunk this thread builds the next and assembles the last. A chunk that times out or
+ * fails falls back to HiGHS problem by problem. Every problem is validated before any is solved. Same method and sources as
+ * `balanceRation`.
  */
 export async function balanceRations(problems: readonly RationProblem[], options?: BalanceOptions): Promise<BalanceResult[]> {
   const opt = balanceOptionsSchema.parse(options ?? {})
-  const preps = problems.map(prepare)
+  const parsed = problems.map((p) => rationProblemSchema.parse(p))
   const runner = opt.solver === 'auto' && !opt.shadowPrices ? registeredLpRunner() : null
+  const noRunnerReason: FallbackReason = opt.shadowPrices || opt.solver === 'highs' ? 'requested' : 'no-runner'
+  const chunks: ParsedRationProblem[][] = []
+  for (let s = 0; s < parsed.length; s += BATCH_CHUNK) chunks.push(parsed.slice(s, s + BATCH_CHUNK))
+  const send = (chunk: Prepared[]) => (runner ? runner.run(chunk.flatMap((q) => [q.fieldOnly.lp, q.main.lp]), opt.timeoutMs, { background: true }) : null)
   const out: BalanceResult[] = []
-  for (let start = 0; start < preps.length; start += BATCH_CHUNK) {
-    const chunk = preps.slice(start, start + BATCH_CHUNK)
-    const jobs = chunk.flatMap((q) => [q.fieldOnly.lp, q.main.lp])
+  let current = chunks.length ? chunks[0].map(prepareParsed) : []
+  let pending = send(current)
+  for (let c = 0; c < chunks.length; c++) {
+    const upcoming = c + 1 < chunks.length ? chunks[c + 1].map(prepareParsed) : []
     let fromRunner: (LpOutcome | undefined)[] | null = null
-    let reason: FallbackReason | null = runner ? null : opt.shadowPrices || opt.solver === 'highs' ? 'requested' : 'no-runner'
-    if (runner) {
+    let reason: FallbackReason | null = runner ? null : noRunnerReason
+    if (pending) {
       try {
-        fromRunner = await runner.run(jobs, opt.timeoutMs)
+        fromRunner = await pending
       } catch (e) {
         reason = isTimeout(e) ? 'timeout' : 'runner-error'
       }
     }
-    for (let k = 0; k < chunk.length; k++) {
-      const q = chunk[k]
+    pending = upcoming.length ? send(upcoming) : null
+    for (let k = 0; k < current.length; k++) {
+      const q = current[k]
       const [fieldAns, mainAns] = await settle([q.fieldOnly.lp, q.main.lp], fromRunner ? [fromRunner[2 * k], fromRunner[2 * k + 1]] : null, reason)
-      out.push(await finish(q, fieldAns, mainAns, opt.shadowPrices))
+      out.push(await finish(q, fieldAns, mainAns))
     }
+    current = upcoming
   }
   return out
 }

@@ -8,7 +8,11 @@ import type { LinearProgram, LpOutcome } from '../lp/program'
  */
 export interface LpRunner {
   readonly name: string
-  run(jobs: readonly LinearProgram[], timeoutMs: number): Promise<LpOutcome[]>
+  /**
+   * `background: true` asks the runner not to block the calling thread while it waits (a batch overlaps its own work with the
+   * solve); otherwise a runner may wait synchronously for a short while, which is the fastest way to get a quick answer.
+   */
+  run(jobs: readonly LinearProgram[], timeoutMs: number, options?: { background?: boolean }): Promise<LpOutcome[]>
 }
 
 let current: LpRunner | null = null
