@@ -3,4 +3,5 @@ export const grazingPages: Record<string, () => Promise<unknown>> = {
   today: () => import('@/pages/grazing/TodayPage.vue'),
   fields: () => import('@/pages/grazing/FieldsPage.vue'),
   'strip-plan': () => import('@/pages/grazing/StripPlanPage.vue'),
+  season: () => import('@/pages/grazing/SeasonPage.vue'),
 }

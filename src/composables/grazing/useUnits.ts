@@ -35,7 +35,9 @@ export function unitsFor(system: UnitSystem) {
   const fmt = (q: Quantity, si: number, digits = 0) => `${num(show(q, si), digits)} ${unit(q)}`
   /** Standing grain: bushels per acre in US units, kg per hectare as-is in metric. */
   const grain = (kgAsIsPerHa: number) => (us ? `${num((kgAsIsPerHa * HA_PER_AC) / (SORGHUM_BU_LB * LB_KG), 0)} bu/ac` : `${num(kgAsIsPerHa, 0)} kg/ha`)
-  return { system, us, unit, show, toSi, fmt, num, grain }
+  /** Dollars with fixed decimals (prices are the user's own; the app has no currency setting). */
+  const money = (v: number, digits = 0) => (Number.isFinite(v) ? `$${v.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits })}` : '—')
+  return { system, us, unit, show, toSi, fmt, num, grain, money }
 }
 
 export function useUnits() {
