@@ -17,6 +17,11 @@ export interface LinearProgram {
    * already reaches it, that answer is also lexicographically optimal and the second solve is skipped.
    */
   secondaryFloor?: number
+  /**
+   * A row whose being at its upper bound settles the tie-break: when it binds and every column used that the second objective
+   * ignores has a positive first-objective cost, the second solve is skipped (see `secondaryAttained`).
+   */
+  secondaryBindingRow?: number
 }
 export interface LpRow {
   name: string
@@ -40,9 +45,16 @@ export function lexicographicTolerance(objective: number): number {
 
 /** True when the first-stage answer already attains the second objective's floor, so no second solve can improve it. */
 export function secondaryAttained(lp: LinearProgram, x: readonly number[]): boolean {
-  if (!lp.secondary) return true
-  if (lp.secondaryFloor === undefined) return false
-  return dot(lp.secondary, x) <= lp.secondaryFloor + 1e-9 * Math.max(1, Math.abs(lp.secondaryFloor))
+  const sec = lp.secondary
+  if (!sec) return true
+  if (lp.secondaryFloor !== undefined && dot(sec, x) <= lp.secondaryFloor + 1e-9 * Math.max(1, Math.abs(lp.secondaryFloor))) return true
+  const r = lp.secondaryBindingRow === undefined ? undefined : lp.rows[lp.secondaryBindingRow]
+  if (!r || !Number.isFinite(r.upper)) return false
+  // In the ration LP this row is intake capacity and the ignored columns are bought feeds: with intake full, more field feed
+  // means fewer kg bought at the same cost, which needs two purchase mixes of exactly equal cost — a tie left to the solver.
+  if (dot(r.coefs, x) < r.upper - 1e-9 * Math.max(1, Math.abs(r.upper))) return false
+  for (let j = 0; j < x.length; j++) if (sec[j] === 0 && x[j] > 1e-9 && !(lp.cost[j] > 0)) return false
+  return true
 }
 
 /** Feasibility tolerance for checking an answer: 1e-7 relative to the size of the terms involved. */

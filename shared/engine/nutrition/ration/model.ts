@@ -48,7 +48,17 @@ export interface NeedSpec {
 
 export interface LimitLabel {
   kind: 'intake' | 'grain' | 'urea' | 'ca-p-min' | 'ca-p-max' | 'ca-max' | 'p-max' | 'cu' | 'offer' | 'feed-max' | 'feed-min'
-  text: string
+  readonly text: string
+}
+/** Labels are read only when a conflict is put in words, so their text is built on first read. */
+function label(kind: LimitLabel['kind'], text: () => string): LimitLabel {
+  let cached: string | undefined
+  return {
+    kind,
+    get text() {
+      return (cached ??= text())
+    },
+  }
 }
 
 export interface RationLp {
@@ -153,9 +163,11 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
     }
   })
   const shortCol: RationLp['shortCol'] = {}
+  const shortNeed: (NeedSpec | undefined)[] = colFeed.map(() => undefined)
   if (mode === 'shortfall') {
     for (const n of ctx.needs) {
       shortCol[n.nutrient] = colFeed.length
+      shortNeed.push(n)
       colFeed.push(-1)
       colPool.push('short')
     }
@@ -172,7 +184,7 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
     return rows.length - 1
   }
 
-  addRow('intake', () => 1, -Infinity, ctx.capacity, { kind: 'intake', text: `intake capacity (${fmt(ctx.capacity)} kg DM/day)` })
+  addRow('intake', () => 1, -Infinity, ctx.capacity, label('intake', () => `intake capacity (${fmt(ctx.capacity)} kg DM/day)`))
 
   const needRow: RationLp['needRow'] = {}
   for (const n of ctx.needs) {
@@ -193,29 +205,29 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
     needRow[n.nutrient] = r
   }
   // A cap on Ca or P without a need row still has to hold.
-  if (limits.maxCaG !== undefined && needRow.ca === undefined) addRow('max:ca', (i) => density[i].ca, -Infinity, limits.maxCaG, { kind: 'ca-max', text: `Ca at most ${fmt(limits.maxCaG)} g/day` })
-  if (limits.maxPG !== undefined && needRow.p === undefined) addRow('max:p', (i) => density[i].p, -Infinity, limits.maxPG, { kind: 'p-max', text: `P at most ${fmt(limits.maxPG)} g/day` })
+  if (limits.maxCaG !== undefined && needRow.ca === undefined) addRow('max:ca', (i) => density[i].ca, -Infinity, limits.maxCaG, label('ca-max', () => `Ca at most ${fmt(limits.maxCaG!)} g/day`))
+  if (limits.maxPG !== undefined && needRow.p === undefined) addRow('max:p', (i) => density[i].p, -Infinity, limits.maxPG, label('p-max', () => `P at most ${fmt(limits.maxPG!)} g/day`))
 
   if (limits.minCaToP !== undefined && limits.minCaToP > 0) {
     const r = limits.minCaToP
-    addRow('ca-p-min', (i) => density[i].ca - r * density[i].p, 0, Infinity, { kind: 'ca-p-min', text: `Ca:P at least ${fmt(r, 2)}:1` })
+    addRow('ca-p-min', (i) => density[i].ca - r * density[i].p, 0, Infinity, label('ca-p-min', () => `Ca:P at least ${fmt(r, 2)}:1`))
   }
   if (limits.maxCaToP !== undefined) {
     const r = limits.maxCaToP
-    addRow('ca-p-max', (i) => density[i].ca - r * density[i].p, -Infinity, 0, { kind: 'ca-p-max', text: `Ca:P at most ${fmt(r, 2)}:1` })
+    addRow('ca-p-max', (i) => density[i].ca - r * density[i].p, -Infinity, 0, label('ca-p-max', () => `Ca:P at most ${fmt(r, 2)}:1`))
   }
   const included = (i: number) => include[i] && ctx.allowed[i]
   if (limits.maxGrainShareOfDm !== undefined && feeds.some((f, i) => included(i) && f.isGrain)) {
     const s = limits.maxGrainShareOfDm
-    addRow('grain-share', (i) => (feeds[i].isGrain ? 1 : 0) - s, -Infinity, 0, { kind: 'grain', text: `grain at most ${fmt(s * 100, 1)} % of diet DM` })
+    addRow('grain-share', (i) => (feeds[i].isGrain ? 1 : 0) - s, -Infinity, 0, label('grain', () => `grain at most ${fmt(s * 100, 1)} % of diet DM`))
   }
   if (feeds.some((f, i) => included(i) && f.isUrea)) {
     const u = limits.maxUreaShareOfDm
-    addRow('urea-share', (i) => (feeds[i].isUrea ? 1 : 0) - u, -Infinity, 0, { kind: 'urea', text: `urea at most ${fmt(u * 100, 2)} % of diet DM` })
+    addRow('urea-share', (i) => (feeds[i].isUrea ? 1 : 0) - u, -Infinity, 0, label('urea', () => `urea at most ${fmt(u * 100, 2)} % of diet DM`))
   }
   if (limits.maxCuMgPerKgDm !== undefined) {
     const c = limits.maxCuMgPerKgDm
-    addRow('cu', (i) => density[i].cu - c, -Infinity, 0, { kind: 'cu', text: `Cu at most ${fmt(c, 1)} mg/kg DM` })
+    addRow('cu', (i) => density[i].cu - c, -Infinity, 0, label('cu', () => `Cu at most ${fmt(c, 1)} mg/kg DM`))
   }
   // What the field offers: each field feed's share of field DM stays within ±tolerance of its offered share.
   if (p.fieldOffer) {
@@ -225,9 +237,9 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
       if (f.role !== 'field' || !included(k)) return
       const o = share.get(f.id) ?? 0
       const isField = (i: number) => (feeds[i].role === 'field' ? 1 : 0)
-      const text = `what the field offers (${f.name} within ${fmt((o - tol) * 100, 0)}–${fmt((o + tol) * 100, 0)} % of field DM)`
-      if (o + tol < 1) addRow(`offer-max:${f.id}`, (i) => (i === k ? 1 : 0) - (o + tol) * isField(i), -Infinity, 0, { kind: 'offer', text })
-      if (o - tol > 0) addRow(`offer-min:${f.id}`, (i) => (i === k ? 1 : 0) - (o - tol) * isField(i), 0, Infinity, { kind: 'offer', text })
+      const text = () => `what the field offers (${f.name} within ${fmt((o - tol) * 100, 0)}–${fmt((o + tol) * 100, 0)} % of field DM)`
+      if (o + tol < 1) addRow(`offer-max:${f.id}`, (i) => (i === k ? 1 : 0) - (o + tol) * isField(i), -Infinity, 0, label('offer', text))
+      if (o - tol > 0) addRow(`offer-min:${f.id}`, (i) => (i === k ? 1 : 0) - (o - tol) * isField(i), 0, Infinity, label('offer', text))
     })
   }
 
@@ -236,8 +248,8 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
   const colLimit: (LimitLabel | null)[] = new Array(nCols).fill(null)
   feeds.forEach((f, i) => {
     if (!included(i)) return
-    const maxText: LimitLabel | null = f.maxKgDm !== undefined ? { kind: 'feed-max', text: `the availability of ${f.name} (at most ${fmt(f.maxKgDm)} kg DM/day)` } : null
-    const minText: LimitLabel | null = f.minKgDm ? { kind: 'feed-min', text: `the minimum of ${f.name} (${fmt(f.minKgDm)} kg DM/day)` } : null
+    const maxText: LimitLabel | null = f.maxKgDm !== undefined ? label('feed-max', () => `the availability of ${f.name} (at most ${fmt(f.maxKgDm!)} kg DM/day)`) : null
+    const minText: LimitLabel | null = f.minKgDm ? label('feed-min', () => `the minimum of ${f.name} (${fmt(f.minKgDm!)} kg DM/day)`) : null
     if (split) {
       if (f.maxKgDm !== undefined) addRow(`feed-max:${f.id}`, (k) => (k === i ? 1 : 0), -Infinity, f.maxKgDm, maxText)
       if (f.minKgDm) addRow(`feed-min:${f.id}`, (k) => (k === i ? 1 : 0), f.minKgDm, Infinity, minText)
@@ -249,7 +261,6 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
     }
   })
 
-  const needOf = new Map(ctx.needs.map((n) => [n.nutrient, n.need]))
   const feedCost = (j: number) => (isFeedCol(j) ? (feeds[colFeed[j]].costPerKgDm ?? 0) : 0)
   let cost: number[]
   let secondary: number[] | undefined
@@ -263,16 +274,11 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
     const fieldMax = feeds.reduce((s, f, i) => (f.role === 'field' && included(i) ? s + (f.maxKgDm ?? Infinity) : s), 0)
     secondaryFloor = -Math.min(ctx.capacity, fieldMax)
   } else {
-    cost = Array.from({ length: nCols }, (_, j) => (colPool[j] === 'short' ? 1 / needOf.get(nutrientOfShortCol(shortCol, j))! : 0))
+    cost = Array.from({ length: nCols }, (_, j) => (shortNeed[j] ? 1 / shortNeed[j]!.need : 0))
     secondary = costTieBreak ? Array.from({ length: nCols }, (_, j) => feedCost(j)) : undefined
   }
-  const colNames = colFeed.map((i, j) => (i >= 0 ? `${feeds[i].id}:${colPool[j]}` : `short:${nutrientOfShortCol(shortCol, j)}`))
-  return { lp: { colNames, cost, colLower, colUpper, rows, secondary, secondaryFloor }, colFeed, colPool, needRow, shortCol, rowLimit, colLimit }
-}
-
-function nutrientOfShortCol(shortCol: RationLp['shortCol'], j: number): Nutrient {
-  for (const [k, v] of Object.entries(shortCol)) if (v === j) return k as Nutrient
-  throw new Error(`column ${j} is not a shortfall column`)
+  const colNames = colFeed.map((i, j) => (i >= 0 ? `${feeds[i].id}:${colPool[j]}` : `short:${shortNeed[j]!.nutrient}`))
+  return { lp: { colNames, cost, colLower, colUpper, rows, secondary, secondaryFloor, ...(mode === 'cost' ? { secondaryBindingRow: 0 } : {}) }, colFeed, colPool, needRow, shortCol, rowLimit, colLimit }
 }
 
 /** kg DM of each feed from an LP answer (columns of a split feed added up), cleaned of solver round-off below 1e-8 kg (10 mg). */
