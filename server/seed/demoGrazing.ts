@@ -5,9 +5,11 @@ import { Field, FieldComponent, GrazingPlan, GrazingRecord, SeasonSettings } fro
 import { Herd } from '../models/nutrition'
 import { createField } from '../services/grazing/fields'
 import { createEstimate } from '../services/grazing/estimates'
-import { fieldCreateSchema, type FieldCreate } from '../../shared/schemas/grazing/fields'
+import { fieldCreateSchema, type Field as FieldJson, type FieldCreate } from '../../shared/schemas/grazing/fields'
 import { worksheetSchema, type WorksheetInput } from '../../shared/schemas/grazing/estimates'
-import { planCreateSchema, type PlanCreate } from '../../shared/schemas/grazing/plans'
+import { planCreateSchema, type Plan, type PlanCreate } from '../../shared/schemas/grazing/plans'
+import type { SeasonSettingsValues } from '../../shared/schemas/grazing/season'
+import { computeWorksheet } from '../../shared/schemas/grazing/worksheets'
 import { addDays } from '../../shared/engine/grazing/dates'
 import { FT_M, IN_M, LB_KG, TON_KG, lbPerAcreToKgPerHa } from '../../shared/engine/units'
 import { evaluatePlan, planDay } from '../../shared/schemas/grazing/planEval'
@@ -363,14 +365,52 @@ export async function seedGrazingDemo(sequelize: Sequelize, ids: DemoIds) {
   await seedPlans(sequelize, ids.operations.client, undefined, plans.client, today)
   for (const operationId of [ids.operations.main, ids.operations.client]) {
     if (await SeasonSettings.findOne({ where: { operationId } })) continue
-    await SeasonSettings.create({
-      operationId,
-      startDate: start,
-      endDate: addDays(start, 134),
-      shortfallFeed: { label: 'Grass hay (demo price)', dmFraction: 0.88, pricePerKgAsFed: perTon(90) },
-      harvestedAlternative: { label: 'Bought grass hay all winter (demo price)', dmFraction: 0.88, pricePerKgAsFed: perTon(90), wasteFraction: 0.2 },
-      frostWaitDays: null,
-    })
+    await SeasonSettings.create({ operationId, ...demoSeasonSettings(start) })
   }
   await linkGrazingDemoPlans(ids)
+}
+
+/**
+ * The main demo operation's fields, plans and season settings in the API's shapes, built without a database (the
+ * worksheets run through the same pure code the server uses), for benchmarking the Season computation on the demo.
+ */
+export function demoSeasonData(start = demoSeasonStart()): { settings: SeasonSettingsValues; fields: FieldJson[]; plans: Plan[] } {
+  const defs = demoFields(start)
+  const now = new Date(0).toISOString()
+  let componentId = 0
+  const fields: FieldJson[] = defs.main.map((d, i) => {
+    const body = fieldCreateSchema.parse(d.body)
+    const id = i + 1
+    const comps = new Map<string, FieldJson['components'][number]>()
+    for (const c of body.components) comps.set(c.kind, { ...c, id: ++componentId, fieldId: id, basis: c.basis ?? null, dmPct: c.dmPct ?? null, labResultId: null, quality: c.quality ?? null, labQuality: null, updatedAt: now })
+    for (const w of d.worksheets) {
+      const ws = worksheetSchema.parse(w)
+      const r = computeWorksheet(ws)
+      const prev = comps.get(r.kind)
+      comps.set(r.kind, { kind: r.kind, kgDmPerHa: r.kgDmPerHa.mean, basis: r.basis, measuredOn: ws.measuredOn, method: ws.method, dmPct: null, labResultId: null, quality: prev?.quality ?? null, labQuality: null, id: prev?.id ?? ++componentId, fieldId: id, updatedAt: now })
+    }
+    const q = DEMO_QUALITY[body.name] ?? {}
+    for (const [kind, lab] of Object.entries(q)) {
+      const c = comps.get(kind)
+      if (c && lab) c.quality = { cpPctDm: lab.cp, tdnPctDm: lab.tdn, source: { kind: 'lab', label: `Demo lab, sample ${lab.ref} (invented)` } }
+    }
+    const { components: _c, ...settings } = body
+    return { ...settings, id, operationId: 1, components: [...comps.values()], createdAt: now, updatedAt: now }
+  })
+  const ids = Object.fromEntries(fields.map((f) => [f.name, f.id]))
+  const plans: Plan[] = demoPlans(start, ids).main.map((d, i) => {
+    const v = planCreateSchema.parse(d.body)
+    return { ...v, id: i + 1, operationId: 1, groupSource: 'plan', supplementSource: v.supplement ? 'plan' : null, createdAt: now, updatedAt: now }
+  })
+  return { settings: demoSeasonSettings(start), fields, plans }
+}
+
+function demoSeasonSettings(start: string): SeasonSettingsValues {
+  return {
+    startDate: start,
+    endDate: addDays(start, 134),
+    shortfallFeed: { label: 'Grass hay (demo price)', dmFraction: 0.88, pricePerKgAsFed: perTon(90) },
+    harvestedAlternative: { label: 'Bought grass hay all winter (demo price)', dmFraction: 0.88, pricePerKgAsFed: perTon(90), wasteFraction: 0.2 },
+    frostWaitDays: null,
+  }
 }
