@@ -6,7 +6,7 @@ import { warningsOfDiet } from '../warnings'
 import { SOURCES } from '../sources'
 import type { NutritionWarning } from '../warning'
 import { registeredLpRunner } from './runner'
-import { buildRationLp, feedIntakes, needSupply, NUTRIENT_UNIT, rationContext, type RationContext, type RationLp } from './model'
+import { buildRationLp, feedIntakes, limitText, needSupply, NUTRIENT_UNIT, rationContext, type RationContext, type RationLp } from './model'
 import {
   balanceOptionsSchema,
   rationProblemSchema,
@@ -91,13 +91,13 @@ function conflictsInWords(r: RationLp, o: LpOutcome & { status: 'optimal' }, ctx
   r.rowLimit.forEach((label, i) => {
     if (!label || !o.rowDual) return
     if (Math.abs(o.rowDual[i]) > 1e-9) {
-      addLimit(label.text)
+      addLimit(limitText(label, ctx))
       if (label.kind === 'intake') capacityBinds = true
     }
   })
   r.colLimit.forEach((label, j) => {
     if (!label || !o.colDual) return
-    if (Math.abs(o.colDual[j]) > 1e-9) addLimit(label.text)
+    if (Math.abs(o.colDual[j]) > 1e-9) addLimit(limitText(label, ctx))
   })
   // Upper caps on a need row (Ca, P maxima) show as a dual of the "wrong" sign on that row.
   for (const s of ['ca', 'p'] as const) {
@@ -129,7 +129,7 @@ function conflictsInWords(r: RationLp, o: LpOutcome & { status: 'optimal' }, ctx
  * When even the least-shortfall LP has no solution, only hard limits and feed minimums are to blame: a deletion filter (drop each
  * labelled limit in turn, keep it dropped if the LP stays infeasible) leaves an irreducible set, named in words. HiGHS answers.
  */
-function explainHardConflict(r: RationLp): string[] {
+function explainHardConflict(r: RationLp, ctx: RationContext): string[] {
   const lp = r.lp
   const active = {
     rows: r.rowLimit.map((l) => l !== null),
@@ -153,8 +153,8 @@ function explainHardConflict(r: RationLp): string[] {
     if (feasible()) active.cols[j] = true
   }
   const texts = new Set<string>()
-  r.rowLimit.forEach((l, i) => l && active.rows[i] && texts.add(l.text))
-  r.colLimit.forEach((l, j) => l && active.cols[j] && texts.add(l.text))
+  r.rowLimit.forEach((l, i) => l && active.rows[i] && texts.add(limitText(l, ctx)))
+  r.colLimit.forEach((l, j) => l && active.cols[j] && texts.add(limitText(l, ctx)))
   return [...texts]
 }
 
@@ -213,7 +213,7 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
     deficiencies = shortfalls(fieldOnly, fieldAns.outcome.x, ctx)
   } else {
     deficiencies = ctx.needs.map((n) => ({ nutrient: n.nutrient, shortBy: n.need, unit: NUTRIENT_UNIT[n.nutrient] }))
-    const why = explainHardConflict(fieldOnly)
+    const why = explainHardConflict(fieldOnly, ctx)
     conflicts.push(`From the field alone no diet can be formed: ${why.length ? listWords(why) : 'the limits'} cannot all hold at once.`)
   }
 
@@ -239,7 +239,7 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
     x = new Array<number>(main.lp.colNames.length).fill(0)
     status = 'short'
     stillShort = ctx.needs.map((n) => ({ nutrient: n.nutrient, shortBy: n.need, unit: NUTRIENT_UNIT[n.nutrient] }))
-    const why = bestLp ? explainHardConflict(bestLp) : []
+    const why = bestLp ? explainHardConflict(bestLp, ctx) : []
     conflicts.push(`No diet can be formed: ${why.length ? listWords(why) : 'the limits'} cannot all hold at once.`)
   }
 

@@ -46,18 +46,40 @@ export interface NeedSpec {
   need: number
 }
 
+/** What a limit row or bound is, as plain data; `limitText` puts it in words only when a conflict needs it. */
 export interface LimitLabel {
   kind: 'intake' | 'grain' | 'urea' | 'ca-p-min' | 'ca-p-max' | 'ca-max' | 'p-max' | 'cu' | 'offer' | 'feed-max' | 'feed-min'
-  readonly text: string
+  value: number
+  feed?: number
+  low?: number
 }
-/** Labels are read only when a conflict is put in words, so their text is built on first read. */
-function label(kind: LimitLabel['kind'], text: () => string): LimitLabel {
-  let cached: string | undefined
-  return {
-    kind,
-    get text() {
-      return (cached ??= text())
-    },
+const label = (kind: LimitLabel['kind'], value: number, feed?: number, low?: number): LimitLabel => ({ kind, value, feed, low })
+
+export function limitText(l: LimitLabel, ctx: RationContext): string {
+  const name = l.feed === undefined ? '' : ctx.p.feeds[l.feed].name
+  switch (l.kind) {
+    case 'intake':
+      return `intake capacity (${fmt(l.value)} kg DM/day)`
+    case 'ca-max':
+      return `Ca at most ${fmt(l.value)} g/day`
+    case 'p-max':
+      return `P at most ${fmt(l.value)} g/day`
+    case 'ca-p-min':
+      return `Ca:P at least ${fmt(l.value, 2)}:1`
+    case 'ca-p-max':
+      return `Ca:P at most ${fmt(l.value, 2)}:1`
+    case 'grain':
+      return `grain at most ${fmt(l.value * 100, 1)} % of diet DM`
+    case 'urea':
+      return `urea at most ${fmt(l.value * 100, 2)} % of diet DM`
+    case 'cu':
+      return `Cu at most ${fmt(l.value, 1)} mg/kg DM`
+    case 'offer':
+      return `what the field offers (${name} within ${fmt((l.low ?? 0) * 100, 0)}–${fmt(l.value * 100, 0)} % of field DM)`
+    case 'feed-max':
+      return `the availability of ${name} (at most ${fmt(l.value)} kg DM/day)`
+    case 'feed-min':
+      return `the minimum of ${name} (${fmt(l.value)} kg DM/day)`
   }
 }
 
@@ -184,7 +206,7 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
     return rows.length - 1
   }
 
-  addRow('intake', () => 1, -Infinity, ctx.capacity, label('intake', () => `intake capacity (${fmt(ctx.capacity)} kg DM/day)`))
+  addRow('intake', () => 1, -Infinity, ctx.capacity, label('intake', ctx.capacity))
 
   const needRow: RationLp['needRow'] = {}
   for (const n of ctx.needs) {
@@ -205,29 +227,29 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
     needRow[n.nutrient] = r
   }
   // A cap on Ca or P without a need row still has to hold.
-  if (limits.maxCaG !== undefined && needRow.ca === undefined) addRow('max:ca', (i) => density[i].ca, -Infinity, limits.maxCaG, label('ca-max', () => `Ca at most ${fmt(limits.maxCaG!)} g/day`))
-  if (limits.maxPG !== undefined && needRow.p === undefined) addRow('max:p', (i) => density[i].p, -Infinity, limits.maxPG, label('p-max', () => `P at most ${fmt(limits.maxPG!)} g/day`))
+  if (limits.maxCaG !== undefined && needRow.ca === undefined) addRow('max:ca', (i) => density[i].ca, -Infinity, limits.maxCaG, label('ca-max', limits.maxCaG))
+  if (limits.maxPG !== undefined && needRow.p === undefined) addRow('max:p', (i) => density[i].p, -Infinity, limits.maxPG, label('p-max', limits.maxPG))
 
   if (limits.minCaToP !== undefined && limits.minCaToP > 0) {
     const r = limits.minCaToP
-    addRow('ca-p-min', (i) => density[i].ca - r * density[i].p, 0, Infinity, label('ca-p-min', () => `Ca:P at least ${fmt(r, 2)}:1`))
+    addRow('ca-p-min', (i) => density[i].ca - r * density[i].p, 0, Infinity, label('ca-p-min', r))
   }
   if (limits.maxCaToP !== undefined) {
     const r = limits.maxCaToP
-    addRow('ca-p-max', (i) => density[i].ca - r * density[i].p, -Infinity, 0, label('ca-p-max', () => `Ca:P at most ${fmt(r, 2)}:1`))
+    addRow('ca-p-max', (i) => density[i].ca - r * density[i].p, -Infinity, 0, label('ca-p-max', r))
   }
   const included = (i: number) => include[i] && ctx.allowed[i]
   if (limits.maxGrainShareOfDm !== undefined && feeds.some((f, i) => included(i) && f.isGrain)) {
     const s = limits.maxGrainShareOfDm
-    addRow('grain-share', (i) => (feeds[i].isGrain ? 1 : 0) - s, -Infinity, 0, label('grain', () => `grain at most ${fmt(s * 100, 1)} % of diet DM`))
+    addRow('grain-share', (i) => (feeds[i].isGrain ? 1 : 0) - s, -Infinity, 0, label('grain', s))
   }
   if (feeds.some((f, i) => included(i) && f.isUrea)) {
     const u = limits.maxUreaShareOfDm
-    addRow('urea-share', (i) => (feeds[i].isUrea ? 1 : 0) - u, -Infinity, 0, label('urea', () => `urea at most ${fmt(u * 100, 2)} % of diet DM`))
+    addRow('urea-share', (i) => (feeds[i].isUrea ? 1 : 0) - u, -Infinity, 0, label('urea', u))
   }
   if (limits.maxCuMgPerKgDm !== undefined) {
     const c = limits.maxCuMgPerKgDm
-    addRow('cu', (i) => density[i].cu - c, -Infinity, 0, label('cu', () => `Cu at most ${fmt(c, 1)} mg/kg DM`))
+    addRow('cu', (i) => density[i].cu - c, -Infinity, 0, label('cu', c))
   }
   // What the field offers: each field feed's share of field DM stays within ±tolerance of its offered share.
   if (p.fieldOffer) {
@@ -237,9 +259,9 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
       if (f.role !== 'field' || !included(k)) return
       const o = share.get(f.id) ?? 0
       const isField = (i: number) => (feeds[i].role === 'field' ? 1 : 0)
-      const text = () => `what the field offers (${f.name} within ${fmt((o - tol) * 100, 0)}–${fmt((o + tol) * 100, 0)} % of field DM)`
-      if (o + tol < 1) addRow(`offer-max:${f.id}`, (i) => (i === k ? 1 : 0) - (o + tol) * isField(i), -Infinity, 0, label('offer', text))
-      if (o - tol > 0) addRow(`offer-min:${f.id}`, (i) => (i === k ? 1 : 0) - (o - tol) * isField(i), 0, Infinity, label('offer', text))
+      const text = label('offer', o + tol, k, o - tol)
+      if (o + tol < 1) addRow(`offer-max:${f.id}`, (i) => (i === k ? 1 : 0) - (o + tol) * isField(i), -Infinity, 0, text)
+      if (o - tol > 0) addRow(`offer-min:${f.id}`, (i) => (i === k ? 1 : 0) - (o - tol) * isField(i), 0, Infinity, text)
     })
   }
 
@@ -248,8 +270,8 @@ export function buildRationLp(ctx: RationContext, include: readonly boolean[], m
   const colLimit: (LimitLabel | null)[] = new Array(nCols).fill(null)
   feeds.forEach((f, i) => {
     if (!included(i)) return
-    const maxText: LimitLabel | null = f.maxKgDm !== undefined ? label('feed-max', () => `the availability of ${f.name} (at most ${fmt(f.maxKgDm!)} kg DM/day)`) : null
-    const minText: LimitLabel | null = f.minKgDm ? label('feed-min', () => `the minimum of ${f.name} (${fmt(f.minKgDm!)} kg DM/day)`) : null
+    const maxText: LimitLabel | null = f.maxKgDm !== undefined ? label('feed-max', f.maxKgDm, i) : null
+    const minText: LimitLabel | null = f.minKgDm ? label('feed-min', f.minKgDm, i) : null
     if (split) {
       if (f.maxKgDm !== undefined) addRow(`feed-max:${f.id}`, (k) => (k === i ? 1 : 0), -Infinity, f.maxKgDm, maxText)
       if (f.minKgDm) addRow(`feed-min:${f.id}`, (k) => (k === i ? 1 : 0), f.minKgDm, Infinity, minText)
