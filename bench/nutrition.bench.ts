@@ -16,7 +16,7 @@ import {
 import { solveWithHighs, solveWithJsLp } from '../shared/engine/nutrition/lp/adapter'
 import { closeServerLpRunner, registerServerLpRunner } from '../server/engine/lpRunner'
 
-// Invented demo groups and fields: book feed values from the science notes, prices invented for timing only.
+// Invented demo groups and fields: published book feed values, prices invented for timing only.
 const field = (cp: number, tdn: number, legumeCp: number): Feed[] => [
   { id: 'grain', name: 'Sorghum grain', role: 'field', dmPct: 89, cpPctDm: 11.5, tdnPctDm: 82, caPctDm: 0.04, pPctDm: 0.35, isGrain: true },
   { id: 'stover', name: 'Sorghum stover', role: 'field', dmPct: 85, cpPctDm: cp, tdnPctDm: tdn, caPctDm: 0.49, pPctDm: 0.12 },

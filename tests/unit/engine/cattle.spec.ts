@@ -31,7 +31,7 @@ describe('pregnancy (NRC, Nutrient Requirements of Beef Cattle, 7th rev. ed., Up
   it('scales with expected calf birth weight (NRC 2000 p. 43, read): a 45-kg calf needs 45/38.5 of the table value', () => {
     expect(pregnancyNem(250, 45) / pregnancyNem(250, 38.5)).toBeCloseTo(45 / 38.5, 12)
   })
-  it('MP for pregnancy at day 280 with a 38.5-kg calf is 241 g/d (NRC 1996 equation, from memory; value derived in the notes)', () => {
+  it('MP for pregnancy at day 280 with a 38.5-kg calf is 241 g/d (NRC 1996 equation, from memory; value derived)', () => {
     expect(pregnancyMp(280, 38.5)).toBeCloseTo(241, 0)
   })
 })
@@ -42,7 +42,7 @@ describe('maintenance and its adjustment factors', () => {
     expect(maintenanceNemBase(600)).toBeCloseTo(9.335, 3)
   })
   it('a 1,200-lb cow (SBW = 0.96 × BW, NRC 1996, from memory) needs 8.416 Mcal NEm for maintenance; with pregnancy day 190 / 250 / 270, 9.581 / 11.748 / 12.912 (derived)', () => {
-    // The notes round SBW to 522.5 kg before the power, hence ±0.001.
+    // The derived 8.416 rounds SBW to 522.5 kg before the power, hence ±0.001.
     expect(Math.abs(cattleRequirements(cow(1200)).components!.maintenanceNemMcal - 8.416)).toBeLessThan(0.001)
     const at = (d: number) => cattleRequirements(cow(1200, { pregnancyDay: d })).nemMcal!
     expect(Math.abs(at(190) - 9.581)).toBeLessThan(0.003)

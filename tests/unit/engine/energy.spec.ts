@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest'
 import { feedEnergy, NRC1985_SHEEP_TABLE1, tdnFromAdf, dmiPctBwFromNdf, relativeFeedValue } from '../../../shared/engine/index'
 
-// TDN % → DE, ME, NEm, NEg (Mcal/kg DM), the table derived in the science notes from NRC 2000 p. 126 and the NRC 1996 cubics.
+// TDN % → DE, ME, NEm, NEg (Mcal/kg DM), derived from NRC 2000 p. 126 and the NRC 1996 cubics and rounded to 3 decimals.
 const TABLE: [number, number, number, number, number][] = [
   [40, 1.764, 1.446, 0.604, 0.077],
   [45, 1.984, 1.627, 0.789, 0.252],

@@ -1,4 +1,4 @@
-// Feed and problem builders for balance tests; compositions are book values from the science notes (sources on each).
+// Feed and problem builders for balance tests; compositions are published book values (source on each).
 import type { Feed, RationProblem, Requirements } from '../../../../shared/engine/index'
 
 /** Sorghum grain, NRC 1996 / NASEM 2016 book values (from memory). */
