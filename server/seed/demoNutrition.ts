@@ -13,7 +13,7 @@ import { LB_KG } from '../../shared/engine/units'
 
 /** Demo lab name: invented. */
 export const DEMO_LAB = 'Demo Feed Lab'
-const lb = (v: number) => Math.round(v * LB_KG * 10) / 10
+const lb = (v: number) => Math.round(v * LB_KG * 1000) / 1000
 
 /** The winter the demo describes: the coming one from July on, the current one before. */
 export function demoWinterYear(now = new Date()): number {

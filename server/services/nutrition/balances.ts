@@ -13,15 +13,15 @@ import {
   balanceSelectionSchema,
   type BalanceSelectionValues,
 } from '../../../shared/schemas/nutrition/balances'
-import { buildBalanceProblem, type BalanceFeed, type BuiltProblem, type FieldOffer } from '../../../shared/schemas/nutrition/problem'
+import { BALANCE_ENGINE_OPTIONS, buildBalanceProblem, type BalanceFeed, type BuiltProblem, type FieldOffer } from '../../../shared/schemas/nutrition/problem'
 import type { ListQuery } from '../../../shared/schemas/nutrition/common'
 import { fieldFeedsForBalance } from '../grazing/fieldFeeds'
 import { assertVersion, iso, ordering, paging, parseWith, pickSent, type Paged } from './common'
 import { feedsForBalance, type FeedView } from './feeds'
 import { herdValues } from './herds'
 
-/** Both sides solve with HiGHS so a stored run, the screen's live preview and any check give the same numbers; HiGHS also gives shadow prices. */
-export const ENGINE_OPTIONS = { solver: 'highs', shadowPrices: true } as const
+/** The options every stored run uses (the same the screen's live preview uses). */
+export const ENGINE_OPTIONS = BALANCE_ENGINE_OPTIONS
 
 export type Assembled = { herd: Herd; built: BuiltProblem; field: { id: number; name: string } | null; dropped: string[] }
 
