@@ -34,7 +34,7 @@ export async function getSeason(sequelize: Sequelize, operationId: number) {
   const herds = await listHerdGroups(sequelize, operationId, settings.startDate)
   const planned = new Set(plans.map((p) => p.herdId).filter((x) => x !== null))
   const unplanned = herds.filter((h) => !planned.has(h.herdId))
-  const { budget, groups } = computeSeason(settings, fields, plans, unplanned)
+  const { budget, groups } = computeSeason(settings, fields, plans)
   return { settings, settingsSaved: !!stored, fields, plans, unplanned, groups, budget }
 }
 

@@ -32,7 +32,7 @@ export type SeasonSettingsValues = z.infer<typeof seasonSettingsSchema>
 
 export const seasonGroupSchema = z.object({ key: z.string(), name: z.string(), species: z.enum(['cattle', 'sheep']), headCount: z.number(), planIds: z.array(z.number()), herdId: z.number().nullable() })
 
-/** What the Season screen gets: the stored settings (or defaults), the fields, plans and unplanned herd groups the budget is built from, and the server's budget. */
+/** What the Season screen gets: the stored settings (or defaults), the fields and plans the budget is built from, the herd groups with no plan (listed, not budgeted), and the server's budget. */
 export const seasonDataSchema = z.object({
   settings: seasonSettingsSchema,
   settingsSaved: z.boolean(),

@@ -2,7 +2,7 @@
 import { seasonBudget, type SeasonBudget, type SeasonPlanInput } from '../../engine/grazing/index'
 import { addDays } from '../../engine/grazing/dates'
 import type { Field } from './fields'
-import type { GrazingGroupOption, Plan } from './plans'
+import type { Plan } from './plans'
 import type { SeasonSettingsValues } from './season'
 import { engineGroup } from './planEval'
 import { toEngineField } from './toEngine'
@@ -16,10 +16,11 @@ export function seasonGroupKey(p: Pick<Plan, 'id' | 'herdId'>): string {
 
 /**
  * One assignment per plan (from its start to its last day, or the season's end), clipped to the season; a group's
- * later plan starts the day after its earlier one ends, since a group grazes one field at a time. Herd groups with
- * no plan eat the shortfall feed all season. A field's area is what lies ahead of the furthest-back starting fence.
+ * later plan starts the day after its earlier one ends, since a group grazes one field at a time. A field's area is
+ * what lies ahead of the furthest-back starting fence. Only groups with a strip plan are budgeted: a herd group with
+ * no plan has no field to draw on, and the screen lists it apart rather than guess how it is fed.
  */
-export function buildSeasonInput(settings: SeasonSettingsValues, fields: Field[], plans: Plan[], unplanned: GrazingGroupOption[] = []): { input: SeasonPlanInput; groups: SeasonGroup[] } {
+export function buildSeasonInput(settings: SeasonSettingsValues, fields: Field[], plans: Plan[]): { input: SeasonPlanInput; groups: SeasonGroup[] } {
   const fieldIds = new Set(fields.map((f) => f.id))
   const usable = plans
     .filter((p) => fieldIds.has(p.fieldId))
@@ -40,18 +41,12 @@ export function buildSeasonInput(settings: SeasonSettingsValues, fields: Field[]
     lastTo.set(key, to)
     assignments.push({ groupId: key, fieldId: String(p.fieldId), from, to, access: p.access, daysPerMove: p.daysPerMove, ...(p.utilization !== null ? { utilization: p.utilization } : {}) })
   }
-  const planned = new Set([...groups.values()].map((g) => g.herdId).filter((x): x is number => x !== null))
-  const extra = unplanned.filter((h) => !planned.has(h.herdId) && h.intakeKgDmPerHead !== null)
-
   const engineFields = fields.map((f) => {
     const offsets = usable.filter((p) => p.fieldId === f.id).map((p) => p.startOffsetM)
     const grazedHa = offsets.length ? (Math.min(...offsets) * f.fenceLengthM) / 10_000 : 0
     return { ...toEngineField(f), areaHa: Math.max(f.areaHa - grazedHa, f.areaHa * 1e-6) }
   })
-  const engineGroups = [
-    ...[...groups.values()].map((g) => engineGroup(g.plan, g.key)),
-    ...extra.map((h) => engineGroup({ groupName: h.name, species: h.species, headCount: h.headCount, bodyWeightKg: h.bodyWeightKg, intakeKgDmPerHead: h.intakeKgDmPerHead as number, pregnant: h.pregnant, lactating: h.lactating, grainAdapted: false, mineral: null, supplement: h.supplement }, `herd-${h.herdId}`)),
-  ]
+  const engineGroups = [...groups.values()].map((g) => engineGroup(g.plan, g.key))
   const input: SeasonPlanInput = {
     start: settings.startDate,
     end: settings.endDate,
@@ -62,16 +57,13 @@ export function buildSeasonInput(settings: SeasonSettingsValues, fields: Field[]
     ...(settings.harvestedAlternative ? { harvestedAlternative: settings.harvestedAlternative } : {}),
     ...(settings.frostWaitDays !== null ? { frostWaitDays: settings.frostWaitDays } : {}),
   }
-  const seasonGroups: SeasonGroup[] = [
-    ...[...groups.values()].map(({ plan: _p, ...g }) => g),
-    ...extra.map((h) => ({ key: `herd-${h.herdId}`, name: h.name, species: h.species, headCount: h.headCount, planIds: [], herdId: h.herdId })),
-  ]
+  const seasonGroups: SeasonGroup[] = [...groups.values()].map(({ plan: _p, ...g }) => g)
   return { input, groups: seasonGroups }
 }
 
 /** The season budget for the stored data, or null when there is no group to feed. */
-export function computeSeason(settings: SeasonSettingsValues, fields: Field[], plans: Plan[], unplanned: GrazingGroupOption[] = []): { budget: SeasonBudget | null; groups: SeasonGroup[] } {
-  const { input, groups } = buildSeasonInput(settings, fields, plans, unplanned)
+export function computeSeason(settings: SeasonSettingsValues, fields: Field[], plans: Plan[]): { budget: SeasonBudget | null; groups: SeasonGroup[] } {
+  const { input, groups } = buildSeasonInput(settings, fields, plans)
   if (input.groups.length === 0) return { budget: null, groups }
   return { budget: seasonBudget(input), groups }
 }

@@ -24,7 +24,7 @@ export function useSeason(opId: () => number) {
       if (!d || !valid.value?.success) return
       const t0 = performance.now()
       try {
-        const r = computeSeason(valid.value.data, d.fields, d.plans, d.unplanned)
+        const r = computeSeason(valid.value.data, d.fields, d.plans)
         budget.value = r.budget
         groups.value = r.groups
         computeError.value = null
