@@ -107,13 +107,17 @@ afterAll(async () => {
       ? `${name.padEnd(52)} ${(median(xs) / 1000).toFixed(3).padStart(9)} s    (${xs.length} runs)`
       : `${name.padEnd(52)} ${(median(xs) * 1000).toFixed(1).padStart(9)} µs   (${xs.length} samples)`,
   )
-  console.log(['', 'Median wall time per call (same ration LPs for the raw solvers):', ...rows, ''].join('\n'))
+  const load = typeof process.getActiveResourcesInfo === 'function' ? (await import('node:os')).loadavg()[0].toFixed(2) : '?'
+  console.log(['', `Median wall time per call (same ration LPs for the raw solvers); 1-minute load average ${load}:`, ...rows, ''].join('\n'))
 })
 
 describe('ration balance', () => {
   bench('balanceRation — whole call, worker guard included', async () => {
     await timedAsync('balanceRation (guarded, whole call)', () => balanceRation(next(SAMPLE)))
   }, { time: 3000, warmupTime: 500 })
+  bench('balanceRation — HiGHS only (solver: highs), no worker', async () => {
+    await timedAsync('balanceRation (HiGHS only, for comparison)', () => balanceRation(next(SAMPLE), { solver: 'highs' }))
+  }, { time: 1500, warmupTime: 300 })
   bench('javascript-lp-solver 1.0.3 — raw solve, in process', () => {
     timed('javascript-lp-solver raw solve', () => solveWithJsLp(next(LPS)))
   }, { time: 2000, warmupTime: 300 })
@@ -124,6 +128,10 @@ describe('ration balance', () => {
     timed('HiGHS raw solve (fresh model)', () => solveWithHighs(next(LPS)))
   }, { time: 2000, warmupTime: 300 })
   bench('10,000 balances — balanceRations, one shared worker', async () => {
+    // CPU time of the whole process (this thread and the worker together) says what one core would need, whatever else runs.
+    const cpu = process.cpuUsage()
     await timedAsync('10,000 balances (balanceRations, one worker)', () => balanceRations(SEASON))
+    const used = process.cpuUsage(cpu)
+    ;(samples['10,000 balances, CPU time of both threads'] ??= []).push((used.user + used.system) / 1000)
   }, { iterations: 3, time: 0, warmupIterations: 1, warmupTime: 0 })
 })

@@ -7,32 +7,38 @@ import { dot, lexicographicTolerance, secondaryAttained, type LinearProgram, typ
 type JsModel = Parameters<typeof jsLpSolver.Solve>[0]
 type JsResult = { feasible: boolean; result: number; bounded?: boolean; [k: string]: number | boolean | undefined }
 
+// Names reused across solves, so building a model allocates no strings (up to 256 columns and rows, far beyond a ration).
+const KEYS = Array.from({ length: 256 }, (_, i) => ({ c: `c${i}`, r: `r${i}`, u: `u${i}`, l: `l${i}` }))
+const key = (i: number) => KEYS[i] ?? { c: `c${i}`, r: `r${i}`, u: `u${i}`, l: `l${i}` }
+
 function toJsModel(lp: LinearProgram, objective: readonly number[], extraRow?: { coefs: readonly number[]; upper: number }): JsModel {
   const constraints: Record<string, { min?: number; max?: number }> = {}
   const variables: Record<string, Record<string, number>> = {}
   const n = lp.colNames.length
-  for (let j = 0; j < n; j++) variables[`c${j}`] = { _obj: objective[j] }
-  lp.rows.forEach((r, i) => {
-    const key = `r${i}`
+  const vars: Record<string, number>[] = []
+  for (let j = 0; j < n; j++) variables[key(j).c] = vars[j] = { _obj: objective[j] }
+  for (let i = 0; i < lp.rows.length; i++) {
+    const r = lp.rows[i]
+    const k = key(i).r
     const c: { min?: number; max?: number } = {}
     if (Number.isFinite(r.lower)) c.min = r.lower
     if (Number.isFinite(r.upper)) c.max = r.upper
-    constraints[key] = c
-    for (let j = 0; j < n; j++) if (r.coefs[j] !== 0) variables[`c${j}`][key] = r.coefs[j]
-  })
+    constraints[k] = c
+    for (let j = 0; j < n; j++) if (r.coefs[j] !== 0) vars[j][k] = r.coefs[j]
+  }
   for (let j = 0; j < n; j++) {
     if (Number.isFinite(lp.colUpper[j])) {
-      constraints[`u${j}`] = { max: lp.colUpper[j] }
-      variables[`c${j}`][`u${j}`] = 1
+      constraints[key(j).u] = { max: lp.colUpper[j] }
+      vars[j][key(j).u] = 1
     }
     if (lp.colLower[j] > 0) {
-      constraints[`l${j}`] = { min: lp.colLower[j] }
-      variables[`c${j}`][`l${j}`] = 1
+      constraints[key(j).l] = { min: lp.colLower[j] }
+      vars[j][key(j).l] = 1
     }
   }
   if (extraRow) {
     constraints.lex = { max: extraRow.upper }
-    for (let j = 0; j < n; j++) if (extraRow.coefs[j] !== 0) variables[`c${j}`].lex = extraRow.coefs[j]
+    for (let j = 0; j < n; j++) if (extraRow.coefs[j] !== 0) vars[j].lex = extraRow.coefs[j]
   }
   return { optimize: '_obj', opType: 'min', constraints, variables } as JsModel
 }
@@ -42,7 +48,7 @@ function jsSolveOnce(lp: LinearProgram, objective: readonly number[], extraRow?:
   if (!r.feasible) return { status: 'infeasible' }
   if (r.bounded === false) return { status: 'unbounded' }
   const x = lp.colNames.map((_, j) => {
-    const v = r[`c${j}`]
+    const v = r[key(j).c]
     return typeof v === 'number' ? v : 0
   })
   return { status: 'optimal', x, objective: dot(objective, x) }
