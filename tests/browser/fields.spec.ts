@@ -20,6 +20,13 @@ beforeAll(async () => {
   hand = await openBrowser({ width: 390, height: 844 })
 })
 afterAll(async () => {
+  // Leave the shared demo as it was for the browser tests that follow: the field goes, and its plan with it.
+  if (owner && opId) {
+    const res = await owner.page.request.get(`${srv.url}/api/operations/${opId}/fields`)
+    const mine = fieldListSchema.parse(await res.json()).items.find((f) => f.name === FIELD)
+    const csrf = (await owner.context.cookies()).find((c) => c.name === 'sg_csrf')?.value
+    if (mine && csrf) await owner.page.request.delete(`${srv.url}/api/operations/${opId}/fields/${mine.id}`, { headers: { 'x-csrf-token': decodeURIComponent(csrf) } })
+  }
   await owner?.close()
   await hand?.close()
   await srv?.close()
