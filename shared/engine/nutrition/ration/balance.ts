@@ -3,7 +3,6 @@ import { checkLpSolution, dot, type LinearProgram, type LpOutcome, type SolverNa
 import { loadHighs, solveWithHighs } from '../lp/adapter'
 import { pearsonFractions } from '../pearson'
 import { warningsOfDiet } from '../warnings'
-import { SOURCES } from '../sources'
 import type { NutritionWarning } from '../warning'
 import { registeredLpRunner } from './runner'
 import { buildRationLp, feedIntakes, limitText, needSupply, NUTRIENT_UNIT, rationContext, type RationContext, type RationLp } from './model'
@@ -402,4 +401,3 @@ export function dietCost(problem: RationProblem, kgDm: readonly number[]): numbe
     kgDm,
   )
 }
-export { SOURCES }
