@@ -4,7 +4,7 @@ import type { Sequelize, Transaction } from 'sequelize'
 import { Membership, Operation, User } from '../models/index'
 import type { Role } from '../../shared/schemas/roles'
 import type { Config } from '../config'
-import { seedGrazingDemo } from './demoGrazing'
+import { linkGrazingDemoPlans, seedGrazingDemo } from './demoGrazing'
 import { seedNutritionDemo } from './demoNutrition'
 
 export const DEMO_PASSWORD = 'graze-demo-2026'
@@ -59,5 +59,7 @@ export async function seedDemo(sequelize: Sequelize, config: Config) {
   // Fields first: herds' balances refer to the fields they graze.
   await seedGrazingDemo(sequelize, ids)
   await seedNutritionDemo(sequelize, ids)
+  // Strip plans are seeded before the herd groups exist; tie them to their groups now.
+  await linkGrazingDemoPlans(ids)
   return ids
 }
