@@ -23,7 +23,7 @@ describe('prices', () => {
 })
 
 describe('buildBalanceProblem', () => {
-  const ewes = { species: 'sheep' as const, class: 'ewe', bodyWeightKg: 70, matureWeightKg: null, bcs: 3, breed: null, expectedBirthDate: '2027-02-20', lastBirthDate: null, restStage: null, litterSize: 2, peakMilkKg: null, calfBirthWeightKg: null, targetGainKg: null, grazing: true, environment: null }
+  const ewes = { species: 'sheep' as const, class: 'ewe' as 'ewe' | 'cow', bodyWeightKg: 70, matureWeightKg: null, bcs: 3, breed: null, expectedBirthDate: '2027-02-20', lastBirthDate: null, restStage: null, litterSize: 2, peakMilkKg: null, calfBirthWeightKg: null, targetGainKg: null, grazing: true, environment: null }
 
   it('when a sheep group is offered a cattle-only mineral, then it is left out with the copper reason and the problem never contains it', () => {
     const forage = feed(1, { kind: 'forage', effective: eff({ dmPct: 80, cpPctDm: 9, tdnPctDm: 55 }) })
@@ -35,7 +35,7 @@ describe('buildBalanceProblem', () => {
   })
 
   it('when base feeds have shares, then the offer adds to exactly 1 and a $/ton price becomes $/kg DM', () => {
-    const cows = { ...ewes, species: 'cattle' as const, class: 'cow', bodyWeightKg: 544, matureWeightKg: 544, bcs: 5, litterSize: null, expectedBirthDate: '2027-03-10' }
+    const cows = { ...ewes, species: 'cattle' as const, class: 'cow' as const, bodyWeightKg: 544, matureWeightKg: 544, bcs: 5, litterSize: null, expectedBirthDate: '2027-03-10' }
     const a = feed(1, { kind: 'forage' })
     const b = feed(2, { kind: 'forage' })
     const c = feed(3, { kind: 'forage' })

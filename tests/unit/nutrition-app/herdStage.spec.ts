@@ -1,9 +1,10 @@
 // Herd stages move with the calendar: pregnancy day from the expected birth date, days in milk after it, sheep stage boundaries of NRC 1985 Table 1.
 import { describe, expect, it } from 'vitest'
-import { addDays, daysBetween, GESTATION_DAYS, herdStageOn, SHEEP_EARLY_LACTATION_DAYS, SHEEP_LATE_GESTATION_DAYS } from '../../../shared/schemas/nutrition/herds'
+import { addDays, daysBetween, type HerdValues, GESTATION_DAYS, herdStageOn, SHEEP_EARLY_LACTATION_DAYS, SHEEP_LATE_GESTATION_DAYS } from '../../../shared/schemas/nutrition/herds'
 
-const cows = { species: 'cattle' as const, class: 'cow', expectedBirthDate: '2027-03-10', lastBirthDate: null, restStage: null, litterSize: null }
-const ewes = { species: 'sheep' as const, class: 'ewe', expectedBirthDate: '2027-02-20', lastBirthDate: null, restStage: null, litterSize: 2 }
+type HerdClass = HerdValues['class']
+const cows = { species: 'cattle' as const, class: 'cow' as HerdClass, expectedBirthDate: '2027-03-10', lastBirthDate: null, restStage: null, litterSize: null }
+const ewes = { species: 'sheep' as const, class: 'ewe' as HerdClass, expectedBirthDate: '2027-02-20', lastBirthDate: null, restStage: null, litterSize: 2 }
 
 describe('herdStageOn', () => {
   it('when cows calve on 10 March, then on any date the pregnancy day is the 283-day gestation (Merck Veterinary Manual worked cow, read) minus the days left', () => {
@@ -32,8 +33,8 @@ describe('herdStageOn', () => {
   })
 
   it('when a heifer is bred, then she is never counted as nursing, and a growing group has no stage beyond its label', () => {
-    const heifers = { ...cows, class: 'bred-heifer' }
+    const heifers = { ...cows, class: 'bred-heifer' as HerdClass }
     expect(herdStageOn(heifers, '2027-03-20').daysInMilk).toBeNull()
-    expect(herdStageOn({ ...cows, class: 'growing', expectedBirthDate: null }, '2027-01-01').label).toBe('Not pregnant or nursing')
+    expect(herdStageOn({ ...cows, class: 'growing' as HerdClass, expectedBirthDate: null }, '2027-01-01').label).toBe('Not pregnant or nursing')
   })
 })
