@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startTestApp, type TestApp } from '../../helpers/app'
 import { eweBody, labBody, makeFeed, makeForage, makeHerd } from '../../fixtures/nutrition'
 import { fieldsOf, makeTeam, type Team } from './setup'
+import { aFieldBody } from '../../fixtures/grazing'
 import { balanceRation } from '../../../shared/engine/nutrition/ration/balance'
 import { pearsonSquare } from '../../../shared/engine/nutrition/pearson'
 import { ENGINE_OPTIONS } from '../../../server/services/nutrition/balances'
@@ -172,5 +173,33 @@ describe('listing, isolation and deletion', () => {
     expect((await team.sessions.hand.delete(team.url(`/balances/${id}`))).status).toBe(403)
     expect((await team.sessions.owner.delete(team.url(`/balances/${id}`))).status).toBe(204)
     expect((await team.sessions.owner.get(team.url(`/balances/${id}`))).status).toBe(404)
+  })
+})
+
+describe('balances on a field', () => {
+  it('when a group balances on a field, then the field’s components are the base feeds; a new sample of a component marks the balance and the re-run uses it', async () => {
+    const created = await team.sessions.owner.post(team.url('/fields'), aFieldBody())
+    expect(created.status).toBe(201)
+    const fieldId = created.body.id as number
+    const herd = await makeHerd(team.op, { name: 'Field cows' })
+    const res = await team.sessions.owner.post(team.url('/balances'), { herdId: herd.id, date: '2027-01-20', fieldId, supplementIds: [cube.id] })
+    expect(res.status).toBe(201)
+    const feeds = res.body.latest.inputs.problem.feeds.filter((f: { role: string }) => f.role === 'field')
+    expect(feeds.map((f: { id: string }) => f.id).sort()).toEqual([`field-${fieldId}-legume-forage`, `field-${fieldId}-sorghum-grain`, `field-${fieldId}-sorghum-stover`])
+    const offered = res.body.latest.inputs.problem.fieldOffer.reduce((a: number, o: { shareOfDm: number }) => a + o.shareOfDm, 0)
+    expect(offered).toBeCloseTo(1, 9)
+
+    const lab = await team.sessions.nutritionist.post(team.url('/lab-results'), { fieldId, component: 'legume-forage', sampleDate: '2027-01-20', labName: 'Test Feed Lab', basis: 'dm', dmPct: 70, cpPct: 21, tdnPct: 60 })
+    expect(lab.status).toBe(201)
+    expect(lab.body.affectedBalances).toContain(res.body.id)
+    const comps = await team.sessions.owner.get(team.url(`/fields/${fieldId}/components`))
+    const legume = (comps.body.items ?? comps.body).find((c: { kind: string }) => c.kind === 'legume-forage')
+    expect(legume.labResultId).toBe(lab.body.id)
+    const re = await team.sessions.owner.post(team.url('/balances/rerun-out-of-date'), { ids: [res.body.id] })
+    expect(re.body.rerun).toEqual([{ id: res.body.id, version: 2, status: expect.any(String) }])
+    const got = await team.sessions.owner.get(team.url(`/balances/${res.body.id}`))
+    const legumeFeed = got.body.latest.inputs.problem.feeds.find((f: { id: string }) => f.id === `field-${fieldId}-legume-forage`)
+    expect(legumeFeed.cpPctDm).toBeCloseTo(21, 6)
+    expect(got.body.latest.labResultIds).toContain(lab.body.id)
   })
 })
