@@ -45,6 +45,8 @@ describe('balanceRation: a cow in late gestation on a sorghum field', () => {
     expect(r.intakes.reduce((s, i) => s + i.kgDm, 0)).toBeCloseTo(r.intakeCapacityKg, 6)
     expect(verifyDiet(p, dietOf(p, r))).toEqual([])
     expect(r.solver).toBe('javascript-lp-solver')
+    // The least-cost diet buys nothing, so it is itself the field-only diet: that LP is not solved again.
+    expect(r.solverRuns.find((x) => x.lp === 'field-only')!.impliedByMain).toBe(true)
   })
 
   it('when stover alone is short of CP, then the field-alone deficiency is reported and the cheapest cube closes it, at the cost glpk.js finds', async () => {

@@ -72,7 +72,14 @@ export function solveWithJsLp(lp: LinearProgram): LpOutcome {
 
 /** The worker's task: several LPs in one round trip. */
 export function solveJobsWithJsLp(jobs: readonly LinearProgram[]): LpOutcome[] {
-  return jobs.map(solveWithJsLp)
+  const out: LpOutcome[] = []
+  for (let k = 0; k < jobs.length; k++) {
+    const skip = jobs[k].skipIfPreviousZero
+    const prev = k > 0 ? out[k - 1] : undefined
+    if (skip && prev?.status === 'optimal' && skip.every((j) => prev.x[j] <= 1e-8)) out.push({ status: 'skipped' })
+    else out.push(solveWithJsLp(jobs[k]))
+  }
+  return out
 }
 
 type HighsInit = Parameters<typeof highsLoader>[0]

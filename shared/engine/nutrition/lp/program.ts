@@ -22,6 +22,11 @@ export interface LinearProgram {
    * ignores has a positive first-objective cost, the second solve is skipped (see `secondaryAttained`).
    */
   secondaryBindingRow?: number
+  /**
+   * In a batch of jobs: skip this LP (answer `skipped`) when the job just before it was optimal with every one of these columns
+   * at zero — the caller knows the answer then without solving.
+   */
+  skipIfPreviousZero?: number[]
 }
 export interface LpRow {
   name: string
@@ -35,6 +40,7 @@ export type LpOutcome =
   | { status: 'infeasible' }
   | { status: 'unbounded' }
   | { status: 'error'; message: string }
+  | { status: 'skipped' }
 
 export type SolverName = 'javascript-lp-solver' | 'highs'
 

@@ -17,7 +17,7 @@ import {
 } from './schema'
 
 type FallbackReason = NonNullable<BalanceResult['solverRuns'][number]['fallbackReason']>
-type Answer = { outcome: LpOutcome; solver: SolverName; fallbackReason?: FallbackReason; checkFailed?: boolean }
+type Answer = { outcome: LpOutcome; solver: SolverName; fallbackReason?: FallbackReason; checkFailed?: boolean; implied?: boolean }
 
 interface Prepared {
   ctx: RationContext
@@ -32,6 +32,8 @@ function prepareParsed(p: ParsedRationProblem): Prepared {
   const ctx = rationContext(p)
   const fieldOnly = buildRationLp(ctx, p.feeds.map((f) => f.role === 'field'), 'shortfall')
   const main = buildRationLp(ctx, p.feeds.map(() => true), 'cost')
+  // Sent after the least-cost LP: when that diet buys nothing, the field alone covers every need and this LP need not run.
+  fieldOnly.lp.skipIfPreviousZero = boughtColumns(main, p)
   return { ctx, fieldOnly, main }
 }
 
@@ -50,13 +52,28 @@ async function viaHighs(lp: LinearProgram, reason: FallbackReason): Promise<Answ
   return { outcome, solver: 'highs', fallbackReason: reason, checkFailed }
 }
 
-async function settle(lps: readonly LinearProgram[], fromRunner: (LpOutcome | undefined)[] | null, reason: FallbackReason | null): Promise<Answer[]> {
-  const out: Answer[] = []
-  for (let k = 0; k < lps.length; k++) {
-    const why = fromRunner ? judge(lps[k], fromRunner[k]) : (reason ?? 'no-runner')
-    out.push(why === null ? { outcome: fromRunner![k]!, solver: 'javascript-lp-solver' } : await viaHighs(lps[k], why))
+function boughtColumns(main: RationLp, p: ParsedRationProblem): number[] {
+  const cols: number[] = []
+  main.colFeed.forEach((i, j) => i >= 0 && p.feeds[i].role !== 'field' && cols.push(j))
+  return cols
+}
+
+/**
+ * Settles the least-cost and field-only answers of one problem (runner outcomes in the order [main, field-only]). When the
+ * accepted least-cost diet buys nothing it is itself a field-only diet meeting every need, so the field-only LP is not needed.
+ */
+async function settle(q: Prepared, fromRunner: (LpOutcome | undefined)[] | null, reason: FallbackReason | null): Promise<[Answer, Answer]> {
+  const mainWhy = fromRunner ? judge(q.main.lp, fromRunner[0]) : (reason ?? 'no-runner')
+  const mainAns: Answer = mainWhy === null ? { outcome: fromRunner![0]!, solver: 'javascript-lp-solver' } : await viaHighs(q.main.lp, mainWhy)
+  const m = mainAns.outcome
+  if (m.status === 'optimal' && !mainAns.checkFailed && q.fieldOnly.lp.skipIfPreviousZero!.every((j) => m.x[j] <= 1e-8)) {
+    const zero = new Array<number>(q.fieldOnly.lp.colNames.length).fill(0)
+    return [{ outcome: { status: 'optimal', x: zero, objective: 0 }, solver: mainAns.solver, implied: true }, mainAns]
   }
-  return out
+  const f = fromRunner?.[1]
+  const fieldWhy = !fromRunner ? (reason ?? 'no-runner') : f?.status === 'skipped' ? (mainWhy ?? 'runner-error') : judge(q.fieldOnly.lp, f)
+  const fieldAns: Answer = fieldWhy === null ? { outcome: f!, solver: 'javascript-lp-solver' } : await viaHighs(q.fieldOnly.lp, fieldWhy)
+  return [fieldAns, mainAns]
 }
 
 const round = (v: number) => (Math.abs(v) < 1e-12 ? 0 : v)
@@ -195,7 +212,7 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
   const p = ctx.p
   const nFeeds = p.feeds.length
   const runs: BalanceResult['solverRuns'] = [
-    { lp: 'field-only', solver: fieldAns.solver, ...(fieldAns.fallbackReason ? { fallbackReason: fieldAns.fallbackReason } : {}) },
+    { lp: 'field-only', solver: fieldAns.solver, ...(fieldAns.fallbackReason ? { fallbackReason: fieldAns.fallbackReason } : {}), ...(fieldAns.implied ? { impliedByMain: true } : {}) },
     { lp: 'main', solver: mainAns.solver, ...(mainAns.fallbackReason ? { fallbackReason: mainAns.fallbackReason } : {}) },
   ]
   if (bestAns) runs.push({ lp: 'best-achievable', solver: bestAns.solver, ...(bestAns.fallbackReason ? { fallbackReason: bestAns.fallbackReason } : {}) })
@@ -327,19 +344,19 @@ export async function balanceRation(problem: RationProblem, options?: BalanceOpt
   const opt = balanceOptionsSchema.parse(options ?? {})
   const runner = opt.solver === 'auto' ? registeredLpRunner() : null
   if (opt.shadowPrices || opt.solver === 'highs') {
-    const [fieldAns, mainAns] = await settle([prep.fieldOnly.lp, prep.main.lp], null, 'requested')
+    const [fieldAns, mainAns] = await settle(prep, null, 'requested')
     return finish(prep, fieldAns, mainAns)
   }
   let fromRunner: (LpOutcome | undefined)[] | null = null
   let reason: FallbackReason | null = runner ? null : 'no-runner'
   if (runner) {
     try {
-      fromRunner = await runner.run([prep.fieldOnly.lp, prep.main.lp], opt.timeoutMs)
+      fromRunner = await runner.run([prep.main.lp, prep.fieldOnly.lp], opt.timeoutMs)
     } catch (e) {
       reason = isTimeout(e) ? 'timeout' : 'runner-error'
     }
   }
-  const [fieldAns, mainAns] = await settle([prep.fieldOnly.lp, prep.main.lp], fromRunner, reason)
+  const [fieldAns, mainAns] = await settle(prep, fromRunner, reason)
   return finish(prep, fieldAns, mainAns)
 }
 
@@ -363,7 +380,7 @@ export async function balanceRations(problems: readonly RationProblem[], options
   const noRunnerReason: FallbackReason = opt.shadowPrices || opt.solver === 'highs' ? 'requested' : 'no-runner'
   const chunks: ParsedRationProblem[][] = []
   for (let s = 0; s < parsed.length; s += BATCH_CHUNK) chunks.push(parsed.slice(s, s + BATCH_CHUNK))
-  const send = (chunk: Prepared[]) => (runner ? runner.run(chunk.flatMap((q) => [q.fieldOnly.lp, q.main.lp]), opt.timeoutMs, { background: true }) : null)
+  const send = (chunk: Prepared[]) => (runner ? runner.run(chunk.flatMap((q) => [q.main.lp, q.fieldOnly.lp]), opt.timeoutMs, { background: true }) : null)
   const out: BalanceResult[] = []
   let current = chunks.length ? chunks[0].map(prepareParsed) : []
   let pending = send(current)
@@ -381,7 +398,7 @@ export async function balanceRations(problems: readonly RationProblem[], options
     pending = upcoming.length ? send(upcoming) : null
     for (let k = 0; k < current.length; k++) {
       const q = current[k]
-      const [fieldAns, mainAns] = await settle([q.fieldOnly.lp, q.main.lp], fromRunner ? [fromRunner[2 * k], fromRunner[2 * k + 1]] : null, reason)
+      const [fieldAns, mainAns] = await settle(q, fromRunner ? [fromRunner[2 * k], fromRunner[2 * k + 1]] : null, reason)
       out.push(await finish(q, fieldAns, mainAns))
     }
     current = upcoming

@@ -124,6 +124,8 @@ export const balanceResultSchema = z.object({
       lp: z.enum(['main', 'field-only', 'best-achievable']),
       solver: z.enum(['javascript-lp-solver', 'highs']),
       fallbackReason: z.enum(['no-runner', 'timeout', 'runner-error', 'failed-check', 'infeasible-claim', 'solver-error', 'requested']).optional(),
+      /** Not solved: the least-cost diet bought nothing, so it is itself a field-only diet that meets every need. */
+      impliedByMain: z.boolean().optional(),
     }),
   ),
 })
