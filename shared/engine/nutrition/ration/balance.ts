@@ -334,7 +334,8 @@ async function finish(prep: Prepared, fieldAns: Answer, mainAns: Answer): Promis
 /**
  * Balances one ration: meets energy (TDN, and NEm/NEg for cattle), CP, Ca and P at least at need, within intake capacity, the
  * Ca:P ratio, grain, urea and Cu limits, what the field offers and each feed's availability, at least supplement cost, ties going
- * to the diet with the most field feed. The LP is the classic least-cost ration formulation; NEm and NEg are met from separate
+ * to the diet with the most field feed. The LP is the classic least-cost ration formulation (Waugh, "The minimum-cost dairy feed",
+ * J. Farm Econ. 33:299, 1951 — from memory); NEm and NEg are met from separate
  * portions of each feed as in NRC, Nutrient Requirements of Beef Cattle, 7th rev. ed. (1996/2000). javascript-lp-solver runs in the
  * registered runner with a time limit; every answer is checked against every constraint, and on a timeout, a failed check or an
  * "infeasible" claim HiGHS re-solves it. With no runner, or with `shadowPrices`, HiGHS answers (its duals become `shadowPrice`).
