@@ -108,7 +108,7 @@ afterAll(async () => {
       : `${name.padEnd(52)} ${(median(xs) * 1000).toFixed(1).padStart(9)} µs   (${xs.length} samples)`,
   )
   const load = typeof process.getActiveResourcesInfo === 'function' ? (await import('node:os')).loadavg()[0].toFixed(2) : '?'
-  console.log(['', `Median wall time per call (same ration LPs for the raw solvers); 1-minute load average ${load}:`, ...rows, ''].join('\n'))
+  process.stdout.write(['', `Median wall time per call (same ration LPs for the raw solvers); 1-minute load average ${load}:`, ...rows, ''].join('\n') + '\n')
 })
 
 describe('ration balance', () => {
