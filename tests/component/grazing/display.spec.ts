@@ -87,4 +87,22 @@ describe('HazardList', () => {
     expect(frost.text()).toContain('7 days after a killing frost')
     expect(frost.text()).toContain(CONSULT_FIRST)
   })
+
+  it('when a limit is set (the crew phone view), then the most severe cautions show first and the rest wait behind one tap', async () => {
+    const base = { measuredOn: '2025-10-01', method: 'visual' as const }
+    const list = hazards(
+      { id: 'f', name: 'Test field', areaHa: 10, fenceLengthM: 200, rowSpacingM: 0.762, legume: 'none', components: [{ kind: 'sorghum-grain', kgDmPerHa: 4000, ...base }, { kind: 'sorghum-stover', kgDmPerHa: 5000, ...base }], killingFrostDates: ['2025-11-10'], nitrate: { value: 3000, unit: 'ppm-NO3-N', sampledOn: '2025-10-01' } },
+      { id: 'g', name: 'Test ewes', species: 'sheep', headCount: 10, bodyWeightKg: 70, intakeKgDmPerHead: 2, pregnant: true },
+      '2025-11-12',
+    )
+    expect(list.length).toBeGreaterThan(2)
+    const { wrapper } = mountWithApp(HazardList, { props: { hazards: list, limit: 2 } })
+    expect(wrapper.findAll('[data-test^=hazard-]').length).toBe(2)
+    expect(wrapper.get('[data-test=hazard-frost-wait]').text()).toContain('Danger')
+    const more = wrapper.get('[data-test=hazards-more]')
+    expect(more.text()).toContain(`Show ${list.length - 2} more`)
+    await more.trigger('click')
+    expect(wrapper.findAll('[data-test^=hazard-]').length).toBe(list.length)
+    expect(wrapper.find('[data-test=hazards-more]').exists()).toBe(false)
+  })
 })
