@@ -56,6 +56,21 @@ describe('NeedSupplyBars', () => {
   })
 })
 
+describe('NeedSupplyBars shadow prices', () => {
+  it('when CP is binding at $0.50 per kg (a HiGHS dual), then US shows $0.23 per lb (NIST pound 0.45359237 kg) and metric $0.50 per kg; non-binding needs show none', async () => {
+    const priced: BalanceResult = { ...result, supply: result.supply.map((x) => (x.nutrient === 'cp' ? { ...x, shadowPrice: 0.5 } : { ...x, shadowPrice: 0 })) }
+    const { wrapper, pinia } = mountWithApp(NeedSupplyBars, { props: { result: priced } })
+    const s = useSessionStore(pinia)
+    s.accept(me('us'))
+    await nextTick()
+    expect(wrapper.find('[data-test=bar-cp] [data-test=bar-marginal]').text()).toBe('Binding: one more lb a head would add $0.23 a day')
+    expect(wrapper.find('[data-test=bar-tdn] [data-test=bar-marginal]').exists()).toBe(false)
+    s.accept(me('metric'))
+    await nextTick()
+    expect(wrapper.find('[data-test=bar-cp] [data-test=bar-marginal]').text()).toBe('Binding: one more kg a head would add $0.50 a day')
+  })
+})
+
 describe('NutritionNumberField', () => {
   it('when the model is 544.31 kg, then it shows 1200 lb; typing 1000 stores 453.59237 kg (NIST pound); metric shows 453.6', async () => {
     const { wrapper, pinia } = mountWithApp(NutritionNumberField, { props: { label: 'Body weight', kind: 'mass', digits: 1, modelValue: 544.310844 } })
