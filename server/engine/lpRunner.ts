@@ -1,9 +1,12 @@
 // The server's LP guard: one worker thread running javascript-lp-solver, a time limit per call, the worker replaced when stopped.
-import { MessageChannel, receiveMessageOnPort, Worker, type MessagePort } from 'node:worker_threads'
+import { MessageChannel, Worker, type MessagePort } from 'node:worker_threads'
 import { registerLpRunner, type LinearProgram, type LpOutcome, type LpRunner } from '../../shared/engine/index'
+import { decodeOutcomes, encodedJobsLength, encodeJobs } from '../../shared/engine/nutrition/lp/wire'
 
 /** Longest the caller's thread blocks waiting synchronously; past it the wait goes on asynchronously until the time limit. */
 const SYNC_WAIT_MS = 10
+/** Doubles in a worker's first data buffer (1 MiB): a chunk of rations fits; a larger request gets a larger buffer. */
+export const LP_WORKER_BUFFER_DOUBLES = 1 << 17
 
 class TimeoutError extends Error {
   override name = 'AbortError'
@@ -14,6 +17,8 @@ interface Slot {
   worker: Worker
   port: MessagePort
   flag: Int32Array
+  data: Float64Array
+  generation: number
   seq: number
 }
 
@@ -24,10 +29,11 @@ let slot: Slot | null = null
 let queue: Promise<unknown> = Promise.resolve()
 
 function spawn(): Slot {
-  const sab = new SharedArrayBuffer(12)
+  const sab = new SharedArrayBuffer(16)
+  const data = new SharedArrayBuffer(LP_WORKER_BUFFER_DOUBLES * 8)
   const { port1, port2 } = new MessageChannel()
   const worker = new Worker(new URL('./lpWorker.mjs', import.meta.url), {
-    workerData: { port: port2, sab },
+    workerData: { port: port2, sab, data },
     transferList: [port2],
     // Inherited flags (a test runner's hooks, an inspector) would only slow the worker.
     execArgv: [],
@@ -37,7 +43,7 @@ function spawn(): Slot {
   worker.on('error', () => {
     if (slot?.worker === worker) slot = null
   })
-  return { worker, port: port1, flag: new Int32Array(sab), seq: 0 }
+  return { worker, port: port1, flag: new Int32Array(sab), data: new Float64Array(data), generation: 0, seq: 0 }
 }
 
 async function waitFor(flag: Int32Array, index: number, notValue: number, deadline: number, block = true): Promise<boolean> {
@@ -60,8 +66,16 @@ async function runNow(jobs: readonly LinearProgram[], deadline: number, block: b
   slot ??= spawn()
   const s = slot
   if (Atomics.load(s.flag, 2) !== 1 && !(await waitFor(s.flag, 2, 0, deadline))) throw new TimeoutError('LP worker not ready in time')
+  const need = encodedJobsLength(jobs)
+  if (need > s.data.length) {
+    // A request larger than the buffer: a new shared buffer, sent to the worker before the request is posted.
+    s.data = new Float64Array(new SharedArrayBuffer(2 ** Math.ceil(Math.log2(need)) * 8))
+    s.generation++
+    s.port.postMessage({ data: s.data.buffer, generation: s.generation })
+    Atomics.store(s.flag, 3, s.generation)
+  }
+  encodeJobs(jobs, s.data)
   const seq = ++s.seq
-  s.port.postMessage({ seq, jobs })
   Atomics.store(s.flag, 0, seq)
   Atomics.notify(s.flag, 0)
   if (!(await waitFor(s.flag, 1, seq - 1, deadline, block))) {
@@ -70,9 +84,11 @@ async function runNow(jobs: readonly LinearProgram[], deadline: number, block: b
     void s.worker.terminate()
     throw new TimeoutError('LP solve timed out')
   }
-  const m = receiveMessageOnPort(s.port)?.message as { seq: number; outcomes?: LpOutcome[]; error?: string } | undefined
-  if (!m || m.seq !== seq || !m.outcomes) throw new Error(m?.error ?? 'LP worker answered out of turn')
-  return m.outcomes
+  if (Atomics.load(s.flag, 1) !== seq) throw new Error('LP worker answered out of turn')
+  if (s.data[0] < 0) throw new Error('LP worker failed on the request')
+  const outcomes = decodeOutcomes(s.data)
+  if (outcomes.length !== jobs.length) throw new Error('LP worker answered a different number of LPs')
+  return outcomes
 }
 
 const runner: LpRunner = {
