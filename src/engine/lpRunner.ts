@@ -1,8 +1,10 @@
 // The browser's LP guard: one Web Worker running javascript-lp-solver, a time limit per call, the worker replaced when stopped.
 import highsWasmUrl from 'highs/runtime?url'
 import { configureHighs, registerLpRunner, type LinearProgram, type LpOutcome, type LpRunner } from '@shared/engine/index'
+import { decodeOutcomes, encodedJobsLength, encodeJobs } from '@shared/engine/nutrition/lp/wire'
 
-type Answer = { seq: number; outcomes?: LpOutcome[]; error?: string }
+/** LPs go to the worker, and answers come back, as flat doubles (lp/wire.ts) in a transferred buffer: nothing is cloned. */
+type Answer = { seq: number; data?: Float64Array; error?: string }
 
 let worker: Worker | null = null
 let seq = 0
@@ -28,11 +30,19 @@ function runNow(jobs: readonly LinearProgram[], deadline: number): Promise<LpOut
       if (e.data.seq !== id) return
       clearTimeout(timer)
       w.removeEventListener('message', onMessage)
-      if (e.data.outcomes) resolve(e.data.outcomes)
-      else reject(new Error(e.data.error ?? 'LP worker error'))
+      try {
+        if (!e.data.data) throw new Error(e.data.error ?? 'LP worker error')
+        const outcomes = decodeOutcomes(e.data.data)
+        if (outcomes.length !== jobs.length) throw new Error('LP worker answered a different number of LPs')
+        resolve(outcomes)
+      } catch (err) {
+        reject(err instanceof Error ? err : new Error(String(err)))
+      }
     }
     w.addEventListener('message', onMessage)
-    w.postMessage({ seq: id, jobs })
+    const data = new Float64Array(encodedJobsLength(jobs))
+    encodeJobs(jobs, data)
+    w.postMessage({ seq: id, data }, [data.buffer])
   })
 }
 

@@ -88,3 +88,26 @@ describe('LP hand-over as flat doubles', () => {
     expect(small[1]).toEqual(solveJobsWithJsLp([lp, odd])[1])
   })
 })
+
+describe('the browser LP worker', () => {
+  it('when it receives a flat request, then it answers with flat outcomes equal to in-process solves, and with an error on a malformed one', async () => {
+    const posted: { seq: number; data?: Float64Array; error?: string }[] = []
+    const fakeSelf = { onmessage: null as ((e: { data: unknown }) => void) | null, postMessage: (m: (typeof posted)[number]) => posted.push(m) }
+    const g = globalThis as { self?: unknown }
+    const before = g.self
+    g.self = fakeSelf
+    try {
+      await import('../../../src/engine/lpWorker')
+      const jobs = [rationLp(), odd]
+      const data = new Float64Array(encodedJobsLength(jobs))
+      encodeJobs(jobs, data)
+      fakeSelf.onmessage!({ data: { seq: 7, data } })
+      fakeSelf.onmessage!({ data: { seq: 8, data: new Float64Array([2.5]) } })
+    } finally {
+      g.self = before
+    }
+    expect(posted[0].seq).toBe(7)
+    expect(decodeOutcomes(posted[0].data!)).toEqual(solveJobsWithJsLp([rationLp(), odd]).map((o) => (o.status === 'optimal' ? { status: o.status, x: o.x, objective: o.objective } : o)))
+    expect(posted[1]).toMatchObject({ seq: 8, error: expect.stringMatching(/malformed/) })
+  })
+})
