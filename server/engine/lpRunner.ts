@@ -29,7 +29,7 @@ let slot: Slot | null = null
 let queue: Promise<unknown> = Promise.resolve()
 
 function spawn(): Slot {
-  const sab = new SharedArrayBuffer(16)
+  const sab = new SharedArrayBuffer(20)
   const data = new SharedArrayBuffer(LP_WORKER_BUFFER_DOUBLES * 8)
   const { port1, port2 } = new MessageChannel()
   const worker = new Worker(new URL('./lpWorker.mjs', import.meta.url), {
@@ -85,7 +85,7 @@ async function runNow(jobs: readonly LinearProgram[], deadline: number, block: b
     throw new TimeoutError('LP solve timed out')
   }
   if (Atomics.load(s.flag, 1) !== seq) throw new Error('LP worker answered out of turn')
-  if (s.data[0] < 0) throw new Error('LP worker failed on the request')
+  if (Atomics.load(s.flag, 4) !== 0) throw new Error('LP worker failed on the request')
   const outcomes = decodeOutcomes(s.data)
   if (outcomes.length !== jobs.length) throw new Error('LP worker answered a different number of LPs')
   return outcomes

@@ -11,7 +11,8 @@ await unregister()
 const { port, sab } = workerData
 const flag = new Int32Array(sab)
 // flag[0]: last request number posted by the server; flag[1]: last request answered; flag[2]: 1 once ready;
-// flag[3]: generation of the data buffer (a larger one arrives on the port when a request outgrows the current one).
+// flag[3]: generation of the data buffer (a larger one arrives on the port when a request outgrows the current one);
+// flag[4]: 1 when the last request failed in the worker (its answer is then not in the buffer).
 // Requests and answers travel in the shared data buffer as flat doubles (lp/wire.ts); nothing is cloned.
 let data = new Float64Array(workerData.data)
 let generation = 0
@@ -28,12 +29,14 @@ for (;;) {
     data = new Float64Array(m.message.data)
     generation = m.message.generation
   }
+  let failed = 0
   try {
     if (generation !== Atomics.load(flag, 3)) throw new Error('LP worker has no data buffer for this request')
     encodeOutcomes(solveJobsWithJsLp(decodeJobs(data)), data)
   } catch {
-    data[0] = -1
+    failed = 1
   }
+  Atomics.store(flag, 4, failed)
   Atomics.store(flag, 1, seen)
   Atomics.notify(flag, 1)
 }

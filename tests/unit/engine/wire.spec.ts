@@ -1,4 +1,5 @@
 // The flat-array hand-over of LPs and answers to the LP worker: exact round trips, malformed input, requests that outgrow the buffer.
+import { MessageChannel, Worker } from 'node:worker_threads'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { cattleRequirements, LB_KG, rationLinearProgram, registeredLpRunner, type LinearProgram, type LpOutcome } from '../../../shared/engine/index'
 import { solveJobsWithJsLp } from '../../../shared/engine/nutrition/lp/adapter'
@@ -110,4 +111,40 @@ describe('the browser LP worker', () => {
     expect(decodeOutcomes(posted[0].data!)).toEqual(solveJobsWithJsLp([rationLp(), odd]).map((o) => (o.status === 'optimal' ? { status: o.status, x: o.x, objective: o.objective } : o)))
     expect(posted[1]).toMatchObject({ seq: 8, error: expect.stringMatching(/malformed/) })
   })
+})
+
+describe('the server LP worker on its own', () => {
+  it('when a request in its shared buffer is malformed, then it flags the failure and answers the next request normally', async () => {
+    const sab = new SharedArrayBuffer(20)
+    const flag = new Int32Array(sab)
+    const data = new Float64Array(new SharedArrayBuffer(1024 * 8))
+    const { port1, port2 } = new MessageChannel()
+    const worker = new Worker(new URL('../../../server/engine/lpWorker.mjs', import.meta.url), { workerData: { port: port2, sab, data: data.buffer }, transferList: [port2 as never], execArgv: [] })
+    try {
+      const waitAsync = (Atomics as unknown as { waitAsync: (a: Int32Array, i: number, v: number, t: number) => { value: unknown } }).waitAsync
+      const answered = async (seq: number) => {
+        await waitAsync(flag, 1, seq - 1, 5000).value
+        return Atomics.load(flag, 1)
+      }
+      await waitAsync(flag, 2, 0, 10_000).value
+      expect(Atomics.load(flag, 2)).toBe(1)
+      data.set([2.5])
+      Atomics.store(flag, 0, 1)
+      Atomics.notify(flag, 0)
+      expect(await answered(1)).toBe(1)
+      expect(Atomics.load(flag, 4)).toBe(1)
+      const lp = rationLp()
+      encodeJobs([lp], data)
+      Atomics.store(flag, 0, 2)
+      Atomics.notify(flag, 0)
+      expect(await answered(2)).toBe(2)
+      expect(Atomics.load(flag, 4)).toBe(0)
+      const expected = solveJobsWithJsLp([lp])[0]
+      expect(expected.status).toBe('optimal')
+      expect(decodeOutcomes(data)).toEqual([{ status: 'optimal', x: (expected as { x: number[] }).x, objective: (expected as { objective: number }).objective }])
+    } finally {
+      port1.close()
+      await worker.terminate()
+    }
+  }, 15_000)
 })
