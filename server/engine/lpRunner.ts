@@ -5,6 +5,11 @@ import { decodeOutcomes, encodedJobsLength, encodeJobs } from '../../shared/engi
 
 /** Longest the caller's thread blocks waiting synchronously; past it the wait goes on asynchronously until the time limit. */
 const SYNC_WAIT_MS = 10
+/**
+ * Before sleeping, a blocking caller polls for the answer for up to this long: a solve takes tens of microseconds, and on an
+ * otherwise idle virtual machine waking a sleeping thread costs about as much again.
+ */
+const SPIN_MS = 0.3
 /** Doubles in a worker's first data buffer (1 MiB): a chunk of rations fits; a larger request gets a larger buffer. */
 export const LP_WORKER_BUFFER_DOUBLES = 1 << 17
 
@@ -46,7 +51,11 @@ function spawn(): Slot {
   return { worker, port: port1, flag: new Int32Array(sab), data: new Float64Array(data), generation: 0, seq: 0 }
 }
 
-async function waitFor(flag: Int32Array, index: number, notValue: number, deadline: number, block = true): Promise<boolean> {
+async function waitFor(flag: Int32Array, index: number, notValue: number, deadline: number, block = true, spin = false): Promise<boolean> {
+  if (spin) {
+    const until = Math.min(deadline, performance.now() + SPIN_MS)
+    while (Atomics.load(flag, index) === notValue && performance.now() < until);
+  }
   const first = block ? Math.min(SYNC_WAIT_MS, Math.max(0, deadline - performance.now())) : 0
   if (Atomics.wait(flag, index, notValue, first) !== 'timed-out') return true
   const rest = deadline - performance.now()
@@ -78,7 +87,7 @@ async function runNow(jobs: readonly LinearProgram[], deadline: number, block: b
   const seq = ++s.seq
   Atomics.store(s.flag, 0, seq)
   Atomics.notify(s.flag, 0)
-  if (!(await waitFor(s.flag, 1, seq - 1, deadline, block))) {
+  if (!(await waitFor(s.flag, 1, seq - 1, deadline, block, block))) {
     // javascript-lp-solver can loop for ever; terminate stops even a busy loop. The replacement starts now, ready in ~0.2 s.
     if (slot === s) slot = spawn()
     void s.worker.terminate()
