@@ -1,5 +1,5 @@
 // Machine set-up shared by `npm start`, `npm test` and `npm run dev`: dependencies, PostgreSQL, Chromium. Plain Node, no packages.
-import { execFileSync, spawnSync } from 'node:child_process'
+import { spawnSync } from 'node:child_process'
 import { createHash } from 'node:crypto'
 import { existsSync, readFileSync, writeFileSync, mkdirSync } from 'node:fs'
 import { createServer } from 'node:net'
@@ -43,7 +43,8 @@ function aptInstall(pkgs) {
 }
 
 export function ensurePostgresInstalled() {
-  const found = spawnSync('bash', ['-c', 'ls -d /usr/lib/postgresql/*/bin/initdb 2>/dev/null | head -n1'], { encoding: 'utf8' }).stdout.trim()
+  const glob = process.env.PG_BIN_GLOB ?? '/usr/lib/postgresql/*/bin'
+  const found = spawnSync('bash', ['-c', `ls -d ${glob}/initdb 2>/dev/null | head -n1`], { encoding: 'utf8' }).stdout.trim()
   if (!found) aptInstall(['postgresql'])
 }
 
@@ -95,10 +96,3 @@ export function npx(bin, args, opts = {}) {
   return spawnSync(join(ROOT, 'node_modules', '.bin', bin), args, { stdio: 'inherit', cwd: ROOT, ...opts })
 }
 
-export function gitIgnoredCheck() {
-  try {
-    execFileSync('git', ['check-ignore', '-q', '.data'], { cwd: ROOT })
-  } catch {
-    // not a git checkout or not ignored: nothing to do at run time
-  }
-}
