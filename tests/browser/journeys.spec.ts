@@ -1,4 +1,4 @@
-// The three journeys of the brief in Chromium against the real server and the demo data, plus the Balance screen's numbers against the engine and the units switch.
+// The three main user journeys in Chromium against the real server and the demo data, plus the Balance screen's numbers against the engine and the units switch.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { openBrowser, signInAs, startBrowserServer, type BrowserServer, type TestBrowser } from '../helpers/browser'

@@ -10,7 +10,7 @@ export const feedKindLabels: Record<FeedKind, string> = { forage: 'Forage', grai
 export const priceUnits = ['ton', 'tonne', 'bag'] as const
 export type PriceUnit = (typeof priceUnits)[number]
 
-/** How each value of a reference row was obtained, in the labels of the project's science notes. */
+/** How each value of a reference row was obtained, labelled read, derived, from memory or common practice. */
 export const provenanceSchema = z.object({
   read: z.array(z.string()),
   derived: z.array(z.string()),

@@ -39,7 +39,7 @@ async function stoverField(session = s.owner, base = s.base, acres = 40, extra: 
 const c21Group = { headCount: 40, bodyWeightKg: 1200 * LB_KG, intakeKgDmPerHead: 30 * LB_KG, utilization: 0.75 }
 
 describe('POST /api/operations/:id/strip-plans', () => {
-  it('science note C21 (strip arithmetic of Penn State Agronomy Guide Table 1.8-9, derived): 40 cows × 30 lb DM on 8,000 lb DM/ac at 75 % and a 660-ft fence take 0.2 ac a day and the fence moves 13.2 ft; 40 ac last 200 days', async () => {
+  it('strip arithmetic of Penn State Agronomy Guide Table 1.8-9 (derived): 40 cows × 30 lb DM on 8,000 lb DM/ac at 75 % and a 660-ft fence take 0.2 ac a day and the fence moves 13.2 ft; 40 ac last 200 days', async () => {
     const f = await stoverField()
     const res = await s.nutritionist.post(`${s.base}/strip-plans`, aPlanBody(f.id, c21Group))
     expect(res.status).toBe(201)
@@ -58,7 +58,7 @@ describe('POST /api/operations/:id/strip-plans', () => {
     expect(ev.body.day.fenceAtM / FT).toBeCloseTo(6 * 13.2, 6)
   })
 
-  it('science note C22 (grain allowance of Univ. of Missouri Ext. G2079, derived): 40 cows × 10 lb grain on 100-bu milo take 0.0714 ac (3,111 ft²) a day, a 4.71-ft move on a 660-ft fence', async () => {
+  it('grain allowance of Univ. of Missouri Ext. G2079 (derived): 40 cows × 10 lb grain on 100-bu milo take 0.0714 ac (3,111 ft²) a day, a 4.71-ft move on a 660-ft fence', async () => {
     const res = await s.owner.post(`${s.base}/fields`, {
       ...aFieldBody({ legume: 'none', corridorWidthM: 0, legumeShareOfWidth: 0, rowSpacingM: 0.762 }),
       areaHa: 40 * AC_HA,

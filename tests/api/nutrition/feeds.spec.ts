@@ -32,7 +32,7 @@ describe('reference feeds', () => {
     }
   })
 
-  it('when a reference row is read, then its values are those of the science notes §5 (cottonseed meal: DM 90, CP 45, TDN 78, Ca 0.20, P 1.00 — Alabama ACES by-product guide, read)', async () => {
+  it('when a reference row is read, then its values are those of the published guide (cottonseed meal: DM 90, CP 45, TDN 78, Ca 0.20, P 1.00 — Alabama ACES by-product guide, read)', async () => {
     const res = await team.sessions.owner.get(team.url('/feeds?scope=reference&q=cottonseed meal'))
     expect(res.body.items).toHaveLength(1)
     expect(res.body.items[0]).toMatchObject({ dmPct: 90, cpPctDm: 45, tdnPctDm: 78, caPctDm: 0.2, pPctDm: 1, provenance: { read: ['dm', 'cp', 'tdn', 'ca', 'p'], fromMemory: ['ndf', 'adf'] } })

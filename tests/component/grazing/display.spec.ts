@@ -19,7 +19,7 @@ describe('display units', () => {
     expect(us.show('mass', 0.45359237)).toBeCloseTo(1, 12)
   })
 
-  it('science note conversion 1 g/m² → lb/ac = 8.922 (derived): 10 kg DM/ha reads 8.92 lb DM/ac; a short ton is 2,000 lb (NIST Handbook 44)', () => {
+  it('conversion 1 g/m² → lb/ac = 8.922 (derived from NIST SP 811 definitions): 10 kg DM/ha reads 8.92 lb DM/ac; a short ton is 2,000 lb (NIST Handbook 44)', () => {
     expect(us.show('dmPerArea', 10)).toBeCloseTo(8.922, 3)
     expect(us.fmt('dmPerArea', 10, 2)).toBe('8.92 lb DM/ac')
     expect(us.show('pricePerMass', 0.1)).toBeCloseTo(90.718474, 6)

@@ -64,7 +64,7 @@ describe('reference-data/feeds.csv', () => {
     }
   })
 
-  it('when rows are compared with the science notes §5, then values read from the Alabama ACES guide match it (DDGS 90 / 28 / 95, Ca 0.05, P 0.88)', () => {
+  it('when rows are compared with the Alabama ACES by-product guide, then the values read from it match (DDGS 90 / 28 / 95, Ca 0.05, P 0.88)', () => {
     const ddgs = rows.find((r) => r.key === 'ddgs')!
     expect(ddgs.values).toMatchObject({ dmPct: 90, cpPctDm: 28, tdnPctDm: 95, caPctDm: 0.05, pPctDm: 0.88 })
     expect(ddgs.provenance.read).toEqual(['dm', 'cp', 'tdn', 'ca', 'p'])

@@ -5,14 +5,14 @@ import { labResultCreateSchema, labValuesToDm, TDN_FROM_ADF_EQUATION } from '../
 const parse = (v: Record<string, unknown>) => labResultCreateSchema.parse({ feedId: 1, sampleDate: '2026-11-01', labName: 'Test Lab', ...v })
 
 describe('labValuesToDm', () => {
-  it('when values are as fed, then % DM = % as fed ÷ DM fraction (NRC 1985 sheep Table 1 footnote; Britannica soybean hay 14.1 % CP at 89.1 % DM → 15.8 % DM, science notes §4.3)', () => {
+  it('when values are as fed, then % DM = % as fed ÷ DM fraction (NRC 1985 sheep Table 1 footnote; Britannica soybean hay 14.1 % CP at 89.1 % DM → 15.8 % DM)', () => {
     const r = labValuesToDm(parse({ basis: 'as-fed', dmPct: 89.1, cpPct: 14.1, tdnPct: 47.7 }))
     expect(r.cpPctDm).toBeCloseTo(15.8, 1)
     expect(r.tdnPctDm).toBeCloseTo(53.5, 1)
     expect(r.dmPct).toBe(89.1)
   })
 
-  it('when nitrate is NO3, then NO3-N = NO3 ÷ 4.43 (molar masses 62/14, science notes §1)', () => {
+  it('when nitrate is NO3, then NO3-N = NO3 ÷ 4.43 (molar masses 62/14)', () => {
     const r = labValuesToDm(parse({ dmPct: 90, cpPct: 8, tdnPct: 55, nitratePpm: 4430, nitrateForm: 'NO3' }))
     expect(r.nitrateNPpmDm).toBeCloseTo(1000, -1)
   })
