@@ -2,8 +2,7 @@
 import { loadConfig } from './config'
 import { createLogger } from './logger'
 import { createSequelize, migrate } from './db/index'
-import { MailSink } from './mail/sink'
-import { Mailer } from './mail/mailer'
+import { startMail } from './mail/index'
 import { createApp } from './app'
 import { seedDemo, DEMO_PASSWORD, demoSignIns } from './seed/demo'
 import { seedReference } from './seed/reference'
@@ -21,14 +20,7 @@ async function main() {
   await seedReference(sequelize)
   if (process.env.SEED_DEMO !== '0') await seedDemo(sequelize, config)
 
-  let sink: MailSink | null = null
-  let mailer: Mailer
-  if (config.smtpUrl) mailer = new Mailer({ url: config.smtpUrl }, config.mailFrom)
-  else {
-    sink = new MailSink()
-    const port = await sink.listen(Number(process.env.SMTP_SINK_PORT ?? 0))
-    mailer = new Mailer({ sinkPort: port }, config.mailFrom)
-  }
+  const { mailer, sink } = await startMail(config, Number(process.env.SMTP_SINK_PORT ?? 0))
   const app = createApp({ sequelize, config, mailer, sink, logger })
   const server = app.listen(config.port, config.host, () => {
     const url = `http://${config.host}:${config.port}`

@@ -16,10 +16,10 @@ export async function loadOperationMembership(req: Request, _res: Response, next
   const raw = req.params.operationId
   const id = Number(raw)
   if (!Number.isInteger(id) || id <= 0 || String(id) !== raw) return next(AppError.notFound('Operation'))
-  const membership = await Membership.findOne({ where: { operationId: id, userId: req.user!.id } })
-  if (!membership) return next(AppError.notFound('Operation'))
-  const operation = await Operation.findByPk(id)
-  if (!operation) return next(AppError.notFound('Operation'))
+  // One query per request: the membership with its operation.
+  const membership = await Membership.findOne({ where: { operationId: id, userId: req.user!.id }, include: [{ model: Operation, as: 'operation' }] })
+  const operation = (membership as unknown as { operation?: Operation } | null)?.operation
+  if (!membership || !operation) return next(AppError.notFound('Operation'))
   req.operation = operation
   req.role = membership.role
   next()

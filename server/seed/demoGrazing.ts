@@ -15,7 +15,7 @@ import { FT_M, IN_M, LB_KG, TON_KG, lbPerAcreToKgPerHa } from '../../shared/engi
 import { evaluatePlan, planDay } from '../../shared/schemas/grazing/planEval'
 import { getField } from '../services/grazing/fields'
 import { getPlan } from '../services/grazing/plans'
-import { todayIso } from '../services/grazing/dates'
+import { todayIso } from '../services/dates'
 
 const AC = 4046.8564224 / 10_000
 const ft = (v: number) => v * FT_M

@@ -3,8 +3,8 @@ import type { Express } from 'express'
 import { createSequelize, migrate } from '../../server/db/index'
 import { loadConfig, type Config } from '../../server/config'
 import { createLogger } from '../../server/logger'
-import { MailSink } from '../../server/mail/sink'
-import { Mailer } from '../../server/mail/mailer'
+import { startMail } from '../../server/mail/index'
+import type { MailSink } from '../../server/mail/sink'
 import { createApp } from '../../server/app'
 import type { AppContext } from '../../server/context'
 
@@ -29,9 +29,9 @@ export async function startTestApp(overrides: Partial<Config> = {}): Promise<Tes
   }
   shared.users += 1
   const sequelize = shared.sequelize
-  const sink = new MailSink()
-  const port = await sink.listen(0)
-  const mailer = new Mailer({ sinkPort: port }, config.mailFrom)
+  const mail = await startMail({ ...config, smtpUrl: null })
+  const sink = mail.sink!
+  const mailer = mail.mailer
   const logger = createLogger('silent')
   const context = { sequelize, config, mailer, sink, logger }
   const app = createApp(context)

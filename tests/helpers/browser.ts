@@ -5,12 +5,9 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { createServer, type AddressInfo, type Server } from 'node:net'
 import type { Server as HttpServer } from 'node:http'
-import { createSequelize, migrate } from '../../server/db/index'
-import { loadConfig, ROOT } from '../../server/config'
-import { createLogger } from '../../server/logger'
-import { MailSink } from '../../server/mail/sink'
-import { Mailer } from '../../server/mail/mailer'
-import { createApp } from '../../server/app'
+import { ROOT } from '../../server/config'
+import type { MailSink } from '../../server/mail/sink'
+import { startTestApp } from './app'
 import { seedDemo, DEMO_PASSWORD } from '../../server/seed/demo'
 import { seedReference } from '../../server/seed/reference'
 
@@ -34,26 +31,20 @@ export async function startBrowserServer(): Promise<BrowserServer> {
   if (!existsSync(join(ROOT, 'dist', 'index.html'))) throw new Error('The client is not built: `npm test` builds it before the browser tests.')
   const port = await freePort()
   const url = `http://127.0.0.1:${port}`
-  const config = loadConfig({ env: 'test', jwtSecret: 'browser-test-secret-0123456789abcdefghijkl', publicUrl: url, port, logLevel: 'silent' })
-  const sequelize = createSequelize(process.env.DATABASE_URL)
-  await migrate(sequelize)
-  await seedReference(sequelize)
-  await seedDemo(sequelize, config)
-  const sink = new MailSink()
-  const mailer = new Mailer({ sinkPort: await sink.listen(0) }, config.mailFrom)
-  const app = createApp({ sequelize, config, mailer, sink, logger: createLogger('silent') })
+  // The same app the API tests drive, serving the built client, with the demo seeded.
+  const t = await startTestApp({ jwtSecret: 'browser-test-secret-0123456789abcdefghijkl', publicUrl: url, port, serveClient: true })
+  await seedReference(t.sequelize)
+  await seedDemo(t.sequelize, t.config)
   const server: HttpServer = await new Promise((resolve) => {
-    const s = app.listen(port, '127.0.0.1', () => resolve(s))
+    const s = t.app.listen(port, '127.0.0.1', () => resolve(s))
   })
   return {
     url,
-    sink,
+    sink: t.sink,
     close: async () => {
       server.closeAllConnections()
       await new Promise((r) => server.close(r))
-      mailer.close()
-      await sink.close()
-      await sequelize.close()
+      await t.close()
     },
   }
 }

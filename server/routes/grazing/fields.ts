@@ -9,7 +9,7 @@ import { isoDateSchema } from '../../../shared/schemas/common'
 import * as fields from '../../services/grazing/fields'
 import * as estimates from '../../services/grazing/estimates'
 import { fieldFeedsForBalance } from '../../services/grazing/fieldFeeds'
-import { todayIso } from '../../services/grazing/dates'
+import { todayIso } from '../../services/dates'
 
 const dateQuery = z.object({ date: isoDateSchema.optional() })
 

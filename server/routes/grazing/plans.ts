@@ -12,7 +12,7 @@ import * as records from '../../services/grazing/records'
 import { today } from '../../services/grazing/today'
 import { getSeason, saveSeasonSettings } from '../../services/grazing/season'
 import { listHerdGroups } from '../../services/grazing/nutritionLinks'
-import { todayIso } from '../../services/grazing/dates'
+import { todayIso } from '../../services/dates'
 
 const dateQuery = z.object({ date: isoDateSchema.optional() })
 

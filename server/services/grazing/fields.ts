@@ -49,10 +49,9 @@ function withoutDm(l: LabQuality): Component['quality'] {
 
 const KIND_ORDER: ComponentKind[] = ['sorghum-grain', 'sorghum-stover', 'legume-forage', 'legume-seed']
 
-export function fieldJson(f: Field, components: FieldComponent[], lab?: Map<number, LabQuality>): FieldJson {
+/** The stored settings of a field, as the API sends them and as an update is checked against. */
+function fieldSettings(f: Field) {
   return {
-    id: f.id,
-    operationId: f.operationId,
     name: f.name,
     areaHa: f.areaHa,
     fenceLengthM: f.fenceLengthM,
@@ -60,13 +59,23 @@ export function fieldJson(f: Field, components: FieldComponent[], lab?: Map<numb
     corridorWidthM: f.corridorWidthM,
     legume: f.legume,
     legumeShareOfWidth: f.legumeShareOfWidth,
-    killingFrostDates: [...f.killingFrostDates].sort(),
-    partialFrostDates: [...f.partialFrostDates].sort(),
+    killingFrostDates: f.killingFrostDates,
+    partialFrostDates: f.partialFrostDates,
     nitrate: f.nitrate,
     grainOnGround: f.grainOnGround,
     weathering: f.weathering,
     economics: f.economics,
     notes: f.notes,
+  }
+}
+
+export function fieldJson(f: Field, components: FieldComponent[], lab?: Map<number, LabQuality>): FieldJson {
+  return {
+    id: f.id,
+    operationId: f.operationId,
+    ...fieldSettings(f),
+    killingFrostDates: [...f.killingFrostDates].sort(),
+    partialFrostDates: [...f.partialFrostDates].sort(),
     components: components
       .slice()
       .sort((a, b) => KIND_ORDER.indexOf(a.kind) - KIND_ORDER.indexOf(b.kind))
@@ -138,23 +147,7 @@ export async function updateField(sequelize: Sequelize, operationId: number, fie
   await sequelize
     .transaction(async (transaction) => {
       const f = await findField(operationId, fieldId, transaction)
-      const current = {
-        name: f.name,
-        areaHa: f.areaHa,
-        fenceLengthM: f.fenceLengthM,
-        rowSpacingM: f.rowSpacingM,
-        corridorWidthM: f.corridorWidthM,
-        legume: f.legume,
-        legumeShareOfWidth: f.legumeShareOfWidth,
-        killingFrostDates: f.killingFrostDates,
-        partialFrostDates: f.partialFrostDates,
-        nitrate: f.nitrate,
-        grainOnGround: f.grainOnGround,
-        weathering: f.weathering,
-        economics: f.economics,
-        notes: f.notes,
-      }
-      const merged = fieldSettingsSchema.safeParse({ ...current, ...patch })
+      const merged = fieldSettingsSchema.safeParse({ ...fieldSettings(f), ...patch })
       if (!merged.success) throw validationError(merged.error, 'request body')
       if (merged.data.legume === 'none' && (f.components ?? []).some((c) => c.kind.startsWith('legume'))) {
         throw fieldError('legume', 'Remove the legume components before setting the field to no legume.')

@@ -9,7 +9,7 @@ import type { z } from 'zod'
 import type { planCreateSchema, planUpdateSchema } from '../../../shared/schemas/grazing/plans'
 import { getField, listFields } from './fields'
 import { listHerdGroups, type GroupInfo } from './nutritionLinks'
-import { todayIso } from './dates'
+import { todayIso } from '../dates'
 
 type PlanCreate = z.output<typeof planCreateSchema>
 type PlanUpdate = z.output<typeof planUpdateSchema>

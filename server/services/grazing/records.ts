@@ -10,7 +10,7 @@ import type { z } from 'zod'
 import { getField } from './fields'
 import { getPlan } from './plans'
 import { evaluatePlan, planDay } from '../../../shared/schemas/grazing/planEval'
-import { todayIso } from './dates'
+import { todayIso } from '../dates'
 
 type RecordCreate = z.output<typeof recordCreateSchema>
 type RecordUpdate = z.output<typeof recordUpdateSchema>

@@ -6,7 +6,7 @@ import { computeSeason } from '../../../shared/schemas/grazing/seasonInput'
 import { addDays } from '../../../shared/engine/grazing/dates'
 import { fieldsAndPlans } from './plans'
 import { listHerdGroups } from './nutritionLinks'
-import { todayIso } from './dates'
+import { todayIso } from '../dates'
 
 /** A winter of about five months from the first plan; the shortfall feed is unpriced until the user prices it. */
 export const DEFAULT_SEASON_DAYS = 150

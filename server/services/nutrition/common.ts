@@ -54,7 +54,8 @@ export function actor(map: Map<number, string>, id: number | null | undefined, f
 }
 
 export const iso = (d: Date | string) => (typeof d === 'string' ? d : d.toISOString())
-export const todayIso = () => new Date().toISOString().slice(0, 10)
+// One notion of "today" for every service: the farm's calendar day.
+export { todayIso } from '../dates'
 
 /**
  * Copies the keys the client actually sent (a schema's defaults must not overwrite stored values on a partial update).

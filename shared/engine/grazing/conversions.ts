@@ -1,4 +1,5 @@
 // Unit conversions the grazing worksheets need beyond ../units (frames, row areas, paces, nitrate forms).
+import { NO3_PER_NO3N } from '../nutrition/conversions'
 import { ACRE_M2, FT_M, HA_M2, IN_M, LB_KG, SORGHUM_BU_LB } from '../units'
 
 /** One square foot in m²: 0.09290304 exactly (NIST SP 811, 2008, App. B). */
@@ -49,14 +50,11 @@ export function metresToPaces(metres: number, paceLengthM: number = DEFAULT_PACE
 }
 
 /**
- * Molar masses for the nitrate forms, from the IUPAC abridged standard atomic weights N 14.007, O 15.999
- * (values from memory). Their ratio, 4.4266, agrees with the published lab factor NO3 = 4.43 × NO3-N and its
+ * NO3 per NO3-N by molar mass (IUPAC standard atomic weights N 14.007, O 15.999; the one ratio both engines use, defined
+ * in the nutrition conversions). Its value, 4.4266, agrees with the published lab factor NO3 = 4.43 × NO3-N and its
  * inverse 0.226 (B. Anderson, Univ. of Nebraska–Lincoln, via Dairy Herd) [read].
  */
-export const N_G_PER_MOL = 14.007
-export const O_G_PER_MOL = 15.999
-export const NO3_G_PER_MOL = N_G_PER_MOL + 3 * O_G_PER_MOL
-export const NO3_PER_NO3N_MOLAR = NO3_G_PER_MOL / N_G_PER_MOL
+export const NO3_PER_NO3N_MOLAR = NO3_PER_NO3N
 
 /** Reporting units a feed lab uses for nitrate on a dry-matter basis. */
 export type NitrateReportUnit = 'ppm-NO3-N' | 'ppm-NO3' | 'pct-NO3-N' | 'pct-NO3'

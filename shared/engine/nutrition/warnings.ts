@@ -1,7 +1,7 @@
 // Safety and sanity warnings on a diet: nitrate, grain, urea, copper, cattle products for sheep, intake, NEg range, Ca:P.
 import { z } from 'zod'
 import { CAUTION, SOURCES } from './sources'
-import { no3FromNo3N } from './conversions'
+import { NO3_PER_NO3N, no3FromNo3N } from './conversions'
 import { feedSchema, limitsSchema } from './ration/schema'
 import { requirementsSchema } from './requirements'
 import { DEFAULT_LIMITS } from './ration/model'
@@ -79,7 +79,7 @@ export function warningsOfDiet(v: z.infer<typeof rationWarningsInputSchema>): Nu
   if (no3Known && no3Weighted > NITRATE_NO3_DIET.safePpm) {
     out.push({
       code: 'nitrate',
-      message: `The diet averages ${no3Weighted.toFixed(0)} mg/kg NO3 in DM (${(no3Weighted / 4.43).toFixed(0)} mg/kg NO3-N): ${no3Weighted > NITRATE_NO3_DIET.toxicPpm ? 'potentially toxic' : 'moderately safe; limit for stressed animals'}. ${CAUTION}`,
+      message: `The diet averages ${no3Weighted.toFixed(0)} mg/kg NO3 in DM (${(no3Weighted / NO3_PER_NO3N).toFixed(0)} mg/kg NO3-N): ${no3Weighted > NITRATE_NO3_DIET.toxicPpm ? 'potentially toxic' : 'moderately safe; limit for stressed animals'}. ${CAUTION}`,
       source: SOURCES.kstateNitrate,
     })
   }

@@ -1,4 +1,5 @@
 // Herd groups: the one schema for a group's fields (SI units), its create/update/response shapes, and the stage it is in on a given date.
+import { addDays, daysBetween } from '../../engine/grazing/dates'
 import { z } from 'zod'
 import { isoDay, num, optNum, optText, versionSchema } from './common'
 
@@ -124,13 +125,8 @@ export type HerdStage = {
   label: string
 }
 
-const DAY_MS = 86_400_000
-export function daysBetween(fromIso: string, toIso: string): number {
-  return Math.round((Date.parse(`${toIso}T00:00:00Z`) - Date.parse(`${fromIso}T00:00:00Z`)) / DAY_MS)
-}
-export function addDays(iso: string, days: number): string {
-  return new Date(Date.parse(`${iso}T00:00:00Z`) + days * DAY_MS).toISOString().slice(0, 10)
-}
+// Calendar arithmetic is the engine's (UTC day numbers); re-exported for the herd form.
+export { addDays, daysBetween }
 
 type StageInput = Pick<HerdValues, 'species' | 'class' | 'expectedBirthDate' | 'lastBirthDate' | 'restStage' | 'litterSize'>
 

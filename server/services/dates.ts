@@ -1,4 +1,4 @@
-// Calendar helpers for the grazing services: "today" as the server's local calendar date.
+// Calendar helpers for the services: "today" as the server's local calendar date.
 /** Today's date as YYYY-MM-DD in the server's time zone (a farm's day, not UTC's). */
 export function todayIso(now: Date = new Date()): string {
   const y = now.getFullYear()
