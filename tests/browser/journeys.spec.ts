@@ -38,6 +38,8 @@ async function openStoredBalance(page: Page, name: string) {
   await item.click()
   await page.waitForSelector('[data-test=balance-result][data-kind=stored]')
   await expect.poll(() => page.textContent('[data-test=balance-result]')).toContain('Saved version')
+  // The page puts the opened balance into the address after it renders; wait for that rather than racing it.
+  await page.waitForURL((u) => new URL(u).searchParams.has('balance'))
   const id = Number(new URL(page.url()).searchParams.get('balance'))
   expect(id).toBeGreaterThan(0)
   return id
