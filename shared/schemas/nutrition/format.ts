@@ -54,3 +54,36 @@ export const tempUnit = (units: Units) => (units === 'us' ? '°F' : '°C')
 export const windValue = (kph: number, units: Units) => (units === 'us' ? kph / 1.609344 : kph)
 export const windFromDisplay = (v: number, units: Units) => (units === 'us' ? v * 1.609344 : v)
 export const windUnit = (units: Units) => (units === 'us' ? 'mph' : 'km/h')
+
+/** 1 oz (avoirdupois) = 1/16 lb = 28.349523125 g exactly (NIST Handbook 44, Appendix C). */
+export const OZ_KG = LB_KG / 16
+
+/**
+ * The amount of one feed a hand puts out, in the unit that suits it: minerals in oz (US) or g (metric) a head, and in lb or kg
+ * once a group's total reaches a pound or a kilogram; everything else in lb or kg to one decimal. An amount that is fed never
+ * reads 0: it gets the decimals it needs (up to three), or "< 0.001".
+ */
+export function feedAmount(kg: number, opts: { mineral: boolean; units: Units }): { value: number; unit: string; text: string } {
+  const { mineral, units } = opts
+  let value: number
+  let unit: string
+  let digits: number
+  if (mineral && kg < LB_KG && units === 'us') {
+    value = kg / OZ_KG
+    unit = 'oz'
+    digits = 1
+  } else if (mineral && kg < 1 && units === 'metric') {
+    value = kg * 1000
+    unit = 'g'
+    digits = 0
+  } else {
+    value = massValue(kg, units)
+    unit = massUnit(units)
+    digits = 1
+  }
+  if (!Number.isFinite(value)) return { value, unit, text: '—' }
+  while (value > 0 && Number(value.toFixed(digits)) === 0 && digits < 3) digits++
+  const shown = Number(value.toFixed(digits))
+  const number = value > 0 && shown === 0 ? `< ${(0.1 ** digits).toFixed(digits)}` : fmtNumber(value, digits)
+  return { value, unit, text: `${number} ${unit}` }
+}
