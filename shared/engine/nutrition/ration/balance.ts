@@ -331,6 +331,8 @@ async function finish(prep: Prepared, fieldAns: Answer, mainAns: Answer, solver:
   return assemble(prep, fieldAns, mainAns, bestAns, bestLp)
 }
 
+const DEFAULT_OPTIONS = balanceOptionsSchema.parse({})
+
 /**
  * Balances one ration: meets energy (TDN, and NEm/NEg for cattle), CP, Ca and P at least at need, within intake capacity, the
  * Ca:P ratio, grain, urea and Cu limits, what the field offers and each feed's availability, at least supplement cost, ties going
@@ -342,7 +344,7 @@ async function finish(prep: Prepared, fieldAns: Answer, mainAns: Answer, solver:
  */
 export async function balanceRation(problem: RationProblem, options?: BalanceOptions): Promise<BalanceResult> {
   const prep = prepare(problem)
-  const opt = balanceOptionsSchema.parse(options ?? {})
+  const opt = options === undefined ? DEFAULT_OPTIONS : balanceOptionsSchema.parse(options)
   const [fieldAns, mainAns] = await settle(prep, opt.solver)
   return finish(prep, fieldAns, mainAns, opt.solver)
 }
