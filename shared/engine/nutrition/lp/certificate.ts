@@ -47,6 +47,23 @@ function solveDense(M: number[], k: number, b: number[]): boolean {
   return true
 }
 
+/** Scratch for the k × k systems (plain arrays of doubles, reused: allocating even typed ones costs more than the solve). */
+const square = {
+  M: [] as number[],
+  Mt: [] as number[],
+  rhs: [] as number[],
+  cs: [] as number[],
+  fit(k: number) {
+    if (this.rhs.length < k) {
+      this.M = new Array<number>(k * k).fill(0.5)
+      this.Mt = new Array<number>(k * k).fill(0.5)
+      this.rhs = new Array<number>(k).fill(0.5)
+      this.cs = new Array<number>(k).fill(0.5)
+    }
+    return this
+  },
+}
+
 function boundValue(lower: number, upper: number, s: number): number {
   return s === LOWER ? (Number.isFinite(lower) ? lower : upper) : s === UPPER ? upper : 0
 }
@@ -72,11 +89,7 @@ export function basisSolution(lp: LinearProgram, cost: readonly number[], basis:
   for (let j = 0; j < n; j++) x[j] = basis.colStatus[j] === BASIC ? 0 : boundValue(lp.colLower[j], lp.colUpper[j], basis.colStatus[j])
   const rowDual = new Array<number>(m).fill(0)
   if (k > 0) {
-    // Plain arrays of doubles: for systems this small, allocating typed arrays would cost more than solving them.
-    const M = new Array<number>(k * k).fill(0.5)
-    const Mt = new Array<number>(k * k).fill(0.5)
-    const rhs = new Array<number>(k).fill(0.5)
-    const cs = new Array<number>(k).fill(0.5)
+    const { M, Mt, rhs, cs } = square.fit(k)
     for (let a = 0; a < k; a++) {
       const row = lp.rows[R[a]]
       let v = boundValue(row.lower, row.upper, basis.rowStatus[R[a]])

@@ -32,6 +32,11 @@ export interface SimplexOptions {
   maxIterations?: number
   /** A starting basis (e.g. the parent's in a branch and bound); ignored when it does not fit or is singular. */
   basis?: LpBasis
+  /**
+   * Work in the one module-level set of arrays instead of allocating (less garbage per solve). Only for a solve whose every
+   * call finishes before another solver is made, as in `solveLp`; two such solvers alive at once would overwrite each other.
+   */
+  scratch?: boolean
 }
 
 /** Primal feasibility tolerance (relative to max(1, |bound|)), dual feasibility tolerance and the smallest acceptable pivot. */
@@ -51,6 +56,33 @@ function doubles(n: number): number[] {
   return new Array<number>(n).fill(0.5).fill(0)
 }
 
+/** The arrays a tableau works in, at least m·w and w (and m) long; plain arrays, as allocating typed ones costs more than a solve. */
+class Workspace {
+  T: number[] = []
+  lo: number[] = []
+  up: number[] = []
+  cost: number[] = []
+  d: number[] = []
+  x: number[] = []
+  status: number[] = []
+  head: number[] = []
+
+  fit(m: number, w: number): this {
+    if (this.T.length < m * w) this.T = doubles(m * w)
+    if (this.lo.length < w) {
+      this.lo = doubles(w)
+      this.up = doubles(w)
+      this.cost = doubles(w)
+      this.d = doubles(w)
+      this.x = doubles(w)
+      this.status = new Array<number>(w).fill(0)
+    }
+    if (this.head.length < m) this.head = new Array<number>(m).fill(0)
+    return this
+  }
+}
+const scratch = new Workspace()
+
 class Tableau {
   readonly n: number
   readonly m: number
@@ -66,7 +98,7 @@ class Tableau {
   iterations = 0
   maxIterations: number
 
-  constructor(lp: LinearProgram, maxIterations: number | undefined) {
+  constructor(lp: LinearProgram, maxIterations: number | undefined, useScratch: boolean) {
     const n = lp.colNames.length
     const m = lp.rows.length
     const w = n + m
@@ -74,15 +106,16 @@ class Tableau {
     this.m = m
     this.w = w
     this.maxIterations = maxIterations ?? 40 * w + 200
-    // Plain arrays: allocating a typed array costs far more than solving a ration-sized LP.
-    this.T = doubles(m * w)
-    this.lo = doubles(w)
-    this.up = doubles(w)
-    this.cost = doubles(w)
-    this.d = doubles(w)
-    this.x = doubles(w)
-    this.status = new Array<number>(w).fill(0)
-    this.head = new Array<number>(m).fill(0)
+    // The arrays may be longer than needed (reused): every loop below and after runs to m, w or m·w, never to a length.
+    const ws = useScratch ? scratch.fit(m, w) : new Workspace().fit(m, w)
+    this.T = ws.T
+    this.lo = ws.lo
+    this.up = ws.up
+    this.cost = ws.cost
+    this.d = ws.d
+    this.x = ws.x
+    this.status = ws.status
+    this.head = ws.head
     for (let j = 0; j < n; j++) {
       this.lo[j] = lp.colLower[j]
       this.up[j] = lp.colUpper[j]
@@ -94,6 +127,7 @@ class Tableau {
       const coefs = r.coefs
       const base = i * w
       for (let j = 0; j < n; j++) this.T[base + j] = -coefs[j]
+      for (let j = n; j < w; j++) this.T[base + j] = 0
       this.T[base + n + i] = 1
       this.head[i] = n + i
       this.status[n + i] = BASIC
@@ -125,8 +159,7 @@ class Tableau {
 
   setCost(c: readonly number[]): void {
     const { cost, d, T, w, m, n, head } = this
-    cost.fill(0)
-    for (let j = 0; j < n; j++) cost[j] = c[j]
+    for (let j = 0; j < w; j++) cost[j] = j < n ? c[j] : 0
     for (let j = 0; j < w; j++) d[j] = cost[j]
     for (let r = 0; r < m; r++) {
       const cb = cost[head[r]]
@@ -473,8 +506,9 @@ export class DenseSimplex {
 
   constructor(lp: LinearProgram, options: SimplexOptions = {}) {
     this.lp = lp
-    this.t = new Tableau(lp, options.maxIterations)
-    if (options.basis && !this.t.install(options.basis)) this.t = new Tableau(lp, options.maxIterations)
+    const useScratch = options.scratch === true
+    this.t = new Tableau(lp, options.maxIterations, useScratch)
+    if (options.basis && !this.t.install(options.basis)) this.t = new Tableau(lp, options.maxIterations, useScratch)
   }
 
   /** Minimises cost·x from the current basis (the slack basis, or the one given). */

@@ -42,7 +42,8 @@ function optimal(x: number[], cost: readonly number[], duals: PrimalDual, iterat
  * and against the first objective with the first stage's duals (so the tie-break cannot have cost anything).
  */
 function solveInThread(lp: LinearProgram, options: SolveLpOptions): InThread {
-  const s = new DenseSimplex(lp, { basis: options.basis, maxIterations: options.maxIterations })
+  // Scratch arrays: this solver is used and dropped within this synchronous call.
+  const s = new DenseSimplex(lp, { basis: options.basis, maxIterations: options.maxIterations, scratch: true })
   const first = s.minimise(lp.cost)
   const it = first.iterations
   if (first.status === 'iteration-limit') return { fallback: 'iteration-limit', iterations: it }
