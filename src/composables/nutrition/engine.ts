@@ -3,7 +3,7 @@ import highsWasmUrl from 'highs/runtime?url'
 import { configureHighs, loadHighs } from '@shared/engine/nutrition/lp/adapter'
 import { balanceRation } from '@shared/engine/nutrition/ration/balance'
 import type { BalanceResult, RationProblem } from '@shared/engine/nutrition/ration/schema'
-import { BALANCE_ENGINE_OPTIONS } from '@shared/schemas/nutrition/problem'
+import { BALANCE_ENGINE_OPTIONS } from '@shared/adapters/nutrition/problem'
 
 let configured = false
 
