@@ -1,6 +1,6 @@
 // Benchmark: the Season screen's computation (computeSeason, the code the browser runs on every settings change) on the main demo operation's data; the target is well under 200 ms.
 import { bench, describe } from 'vitest'
-import { computeSeason, buildSeasonInput } from '../shared/schemas/grazing/seasonInput'
+import { computeSeason, buildSeasonInput } from '../shared/adapters/grazing/seasonInput'
 import { seasonBudget } from '../shared/engine/grazing/index'
 import { demoSeasonData } from '../server/seed/demoGrazing'
 

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { openBrowser, signInAs, startBrowserServer, type BrowserServer, type TestBrowser } from '../helpers/browser'
 import { fieldListSchema } from '../../shared/schemas/grazing/fields'
-import { evaluatePlan } from '../../shared/schemas/grazing/planEval'
+import { evaluatePlan } from '../../shared/adapters/grazing/planEval'
 import { FT_M, LB_KG } from '../../shared/engine/units'
 import { grainYieldFromHeads, clipPlotDm } from '../../shared/engine/grazing/index'
 

@@ -4,7 +4,7 @@ import { AppError } from '../../errors'
 import { FieldComponent, FieldEstimate } from '../../models/grazing'
 import type { Estimate, WorksheetResult } from '../../../shared/schemas/grazing/estimates'
 import { worksheetSchema } from '../../../shared/schemas/grazing/estimates'
-import { computeWorksheet } from '../../../shared/schemas/grazing/worksheets'
+import { computeWorksheet } from '../../../shared/adapters/grazing/worksheets'
 import type { z } from 'zod'
 import { findField } from './fields'
 

@@ -2,7 +2,7 @@
 import { Field, FieldComponent } from '../../models/grazing'
 import { AppError } from '../../errors'
 import { isoDateSchema } from '../../../shared/schemas/common'
-import { fieldFeedsFromField, type FieldFeeds } from '../../../shared/schemas/grazing/toEngine'
+import { fieldFeedsFromField, type FieldFeeds } from '../../../shared/adapters/grazing/toEngine'
 import { fieldJson } from './fields'
 import { labQualities } from './nutritionLinks'
 

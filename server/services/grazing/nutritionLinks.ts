@@ -2,8 +2,8 @@
 import { Op, type Sequelize } from 'sequelize'
 import { Balance, BalanceVersion, Feed, Herd, LabResult } from '../../models/nutrition'
 import { herdValues } from '../nutrition/herds'
-import { herdNeeds } from '../../../shared/schemas/nutrition/problem'
-import { feedIdFromEngine } from '../../../shared/schemas/nutrition/problem'
+import { herdNeeds } from '../../../shared/adapters/nutrition/problem'
+import { feedIdFromEngine } from '../../../shared/adapters/nutrition/problem'
 import type { ComponentQualityInput } from '../../../shared/schemas/grazing/fields'
 import type { GrazingGroupOption, PlanSupplement } from '../../../shared/schemas/grazing/plans'
 

@@ -9,7 +9,7 @@ import type { recordCreateSchema, recordListQuerySchema, recordUpdateSchema } fr
 import type { z } from 'zod'
 import { getField } from './fields'
 import { getPlan } from './plans'
-import { evaluatePlan, planDay } from '../../../shared/schemas/grazing/planEval'
+import { evaluatePlan, planDay } from '../../../shared/adapters/grazing/planEval'
 import { todayIso } from '../dates'
 
 type RecordCreate = z.output<typeof recordCreateSchema>

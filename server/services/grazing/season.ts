@@ -2,7 +2,7 @@
 import type { Sequelize } from 'sequelize'
 import { SeasonSettings } from '../../models/grazing'
 import type { SeasonSettingsValues } from '../../../shared/schemas/grazing/season'
-import { computeSeason } from '../../../shared/schemas/grazing/seasonInput'
+import { computeSeason } from '../../../shared/adapters/grazing/seasonInput'
 import { addDays } from '../../../shared/engine/grazing/dates'
 import { fieldsAndPlans } from './plans'
 import { listHerdGroups } from './nutritionLinks'

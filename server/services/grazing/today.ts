@@ -2,7 +2,7 @@
 import { Op, type Sequelize } from 'sequelize'
 import { GrazingRecord } from '../../models/grazing'
 import type { Today, TodayItem } from '../../../shared/schemas/grazing/records'
-import { engineGroup, evaluatePlan, planDay, planHazards } from '../../../shared/schemas/grazing/planEval'
+import { engineGroup, evaluatePlan, planDay, planHazards } from '../../../shared/adapters/grazing/planEval'
 import { DEFAULT_PACE_M } from '../../../shared/engine/grazing/index'
 import { addDays } from '../../../shared/engine/grazing/dates'
 import { fieldsAndPlans } from './plans'

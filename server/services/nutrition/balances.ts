@@ -13,7 +13,7 @@ import {
   balanceSelectionSchema,
   type BalanceSelectionValues,
 } from '../../../shared/schemas/nutrition/balances'
-import { buildBalanceProblem, type BalanceFeed, type BuiltProblem, type FieldOffer } from '../../../shared/schemas/nutrition/problem'
+import { buildBalanceProblem, type BalanceFeed, type BuiltProblem, type FieldOffer } from '../../../shared/adapters/nutrition/problem'
 import type { ListQuery } from '../../../shared/schemas/nutrition/common'
 import { fieldFeedsForBalance } from '../grazing/fieldFeeds'
 import { assertVersion, iso, ordering, paging, parseWith, pickSent, type Paged } from './common'

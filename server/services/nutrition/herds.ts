@@ -5,7 +5,7 @@ import { Herd } from '../../models/nutrition'
 import type { User } from '../../models/index'
 import { herdCreateSchema, herdUpdateSchema, type HerdValues } from '../../../shared/schemas/nutrition/herds'
 import type { ListQuery } from '../../../shared/schemas/nutrition/common'
-import { herdNeeds } from '../../../shared/schemas/nutrition/problem'
+import { herdNeeds } from '../../../shared/adapters/nutrition/problem'
 import { applyPatch, assertVersion, iso, ordering, paging, parseWith, pickSent, textFilter, todayIso, type Paged } from './common'
 import { markBalancesOutOfDate } from './staleness'
 

@@ -3,7 +3,7 @@ import { computed, ref, shallowRef, watch } from 'vue'
 import { useRequest } from '@/composables/useRequest'
 import { seasonApi } from '@/api/grazing'
 import { seasonSettingsSchema, type SeasonSettingsValues } from '@shared/schemas/grazing/season'
-import { computeSeason, type SeasonGroup } from '@shared/schemas/grazing/seasonInput'
+import { computeSeason, type SeasonGroup } from '@shared/adapters/grazing/seasonInput'
 import type { SeasonBudget } from '@shared/engine/grazing/index'
 
 export function useSeason(opId: () => number) {

@@ -1,7 +1,7 @@
 // Feed prices per kg DM, the balance's input builder (sheep never offered cattle-only feeds), and the reference feed library's provenance.
 import { describe, expect, it } from 'vitest'
 import { costPerKgDm, costPerKgAsFed, type EffectiveValues } from '../../../shared/schemas/nutrition/feeds'
-import { buildBalanceProblem, CATTLE_ONLY_REASON, type BalanceFeed } from '../../../shared/schemas/nutrition/problem'
+import { buildBalanceProblem, CATTLE_ONLY_REASON, type BalanceFeed } from '../../../shared/adapters/nutrition/problem'
 import { readReferenceFeeds } from '../../../server/seed/reference'
 import { fmtMass, massValue } from '../../../shared/schemas/nutrition/format'
 

@@ -1,7 +1,7 @@
 // Runs a yield worksheet through the grazing engine: each sample, then their average and spread; pure, so the dialog previews exactly what the server saves.
 import { grainYieldFromHeads, clipPlotDm, sampleSpread } from '../../engine/grazing/index'
 import { kgPerHaToLbPerAcre } from '../../engine/units'
-import type { ClippedFrameWorksheet, HeadCountWorksheet, WorksheetResult } from './estimates'
+import type { ClippedFrameWorksheet, HeadCountWorksheet, WorksheetResult } from '../../schemas/grazing/estimates'
 
 /**
  * Head counts: K-State's formula per stretch of row (engine grainYieldFromHeads), DM per hectare at the 14 %

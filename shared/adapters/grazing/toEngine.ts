@@ -1,7 +1,7 @@
 // Maps the stored field and plan resources onto the grazing engine's input shapes, and a field's standing feed onto Balance feeds; pure, used by client and server alike.
 import { SORGHUM_GRAIN_DM_FRACTION, nitrateToPpmNo3N, supplyOfParsedField, grazingFieldSchema, type FieldSupply, type GrazingField, type GrazingFieldInput } from '../../engine/grazing/index'
 import type { Feed } from '../../engine/nutrition/ration/schema'
-import { componentKindLabels, type Component, type ComponentKind, type ComponentQualityInput, type Field } from './fields'
+import { componentKindLabels, type Component, type ComponentKind, type ComponentQualityInput, type Field } from '../../schemas/grazing/fields'
 
 /**
  * Standing dry-matter % when neither a lab result nor the user gives one. Grain: the 14 %-moisture basis of the

@@ -1,9 +1,9 @@
 // Builds the engine's season plan from the stored fields, plans and herd groups, and runs the season budget; pure, so the Season screen recomputes in the browser as prices and dates change.
 import { seasonBudget, type SeasonBudget, type SeasonPlanInput } from '../../engine/grazing/index'
 import { addDays } from '../../engine/grazing/dates'
-import type { Field } from './fields'
-import type { Plan } from './plans'
-import type { SeasonSettingsValues } from './season'
+import type { Field } from '../../schemas/grazing/fields'
+import type { Plan } from '../../schemas/grazing/plans'
+import type { SeasonSettingsValues } from '../../schemas/grazing/season'
 import { engineGroup } from './planEval'
 import { toEngineField } from './toEngine'
 

@@ -18,9 +18,9 @@ import {
   type StripPlan,
 } from '../../engine/grazing/index'
 import { addDays, daysBetween } from '../../engine/grazing/dates'
-import type { Field } from './fields'
+import type { Field } from '../../schemas/grazing/fields'
 import { parseEngineField, toEngineField } from './toEngine'
-import type { PlanValues } from './plans'
+import type { PlanValues } from '../../schemas/grazing/plans'
 
 export type PlanGroup = Pick<PlanValues, 'groupName' | 'species' | 'headCount' | 'bodyWeightKg' | 'intakeKgDmPerHead' | 'pregnant' | 'lactating' | 'grainAdapted' | 'mineral' | 'supplement'>
 export type EvaluablePlan = PlanGroup & Pick<PlanValues, 'access' | 'daysPerMove' | 'basis' | 'grainAllowanceKgPerHead' | 'utilization' | 'startDate' | 'endDate' | 'startOffsetM' | 'paceLengthM'> & { id?: number }

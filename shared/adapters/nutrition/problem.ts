@@ -3,10 +3,10 @@ import { cattleRequirements, type CattleAnimal } from '../../engine/nutrition/ca
 import { sheepRequirements, type SheepAnimal } from '../../engine/nutrition/sheep'
 import type { Requirements } from '../../engine/nutrition/requirements'
 import type { Feed as EngineFeed, RationProblem } from '../../engine/nutrition/ration/schema'
-import type { EffectiveValues, FeedKind, PriceUnit } from './feeds'
-import { costPerKgDm } from './feeds'
-import { herdStageOn, type HerdStage, type HerdValues } from './herds'
-import type { BalanceSettings } from './balances'
+import type { EffectiveValues, FeedKind, PriceUnit } from '../../schemas/nutrition/feeds'
+import { costPerKgDm } from '../../schemas/nutrition/feeds'
+import { herdStageOn, type HerdStage, type HerdValues } from '../../schemas/nutrition/herds'
+import type { BalanceSettings } from '../../schemas/nutrition/balances'
 
 /** The parts of a feed record the balance needs. */
 export type BalanceFeed = {
