@@ -207,7 +207,7 @@ class Tableau {
     }
   }
 
-  ptol(j: number, bound: number): number {
+  ptol(bound: number): number {
     return TOL_P * Math.max(1, Math.abs(bound))
   }
 
@@ -215,7 +215,7 @@ class Tableau {
     const { m, head, x, lo, up } = this
     for (let r = 0; r < m; r++) {
       const j = head[r]
-      if (x[j] < lo[j] - this.ptol(j, lo[j]) || x[j] > up[j] + this.ptol(j, up[j])) return false
+      if (x[j] < lo[j] - this.ptol(lo[j]) || x[j] > up[j] + this.ptol(up[j])) return false
     }
     return true
   }
@@ -254,8 +254,8 @@ class Tableau {
 
   /**
    * Dual simplex from a dual-feasible basis: the most infeasible basic variable leaves (Bland: the lowest index), the entering one
-   * keeps every reduced cost's sign (Harris's two-pass ratio test, largest pivot among near-ties). Returns the row of an
-   * infeasible variable that no entering variable can repair (the LP is infeasible), or −1 at a primal-feasible basis.
+   * keeps every reduced cost's sign (Harris's two-pass ratio test, largest pivot among near-ties). Returns 'optimal' at a
+   * primal-feasible basis, or the row of an infeasible variable that no entering variable can repair (the LP is infeasible).
    */
   dual(): SimplexStatus | { infeasibleRow: number } {
     const { T, w, m, x, lo, up, d, status, head } = this
@@ -268,7 +268,7 @@ class Tableau {
         const j = head[i]
         const below = lo[j] - x[j]
         const above = x[j] - up[j]
-        const inf = below > this.ptol(j, lo[j]) ? below : above > this.ptol(j, up[j]) ? above : 0
+        const inf = below > this.ptol(lo[j]) ? below : above > this.ptol(up[j]) ? above : 0
         if (inf <= 0) continue
         if (bland ? r < 0 || j < head[r] : inf > best) {
           best = inf
@@ -358,7 +358,7 @@ class Tableau {
         const a = T[i * w + q] * dir
         if (Math.abs(a) < TOL_PIV) continue
         const j = head[i]
-        const room = a > 0 ? x[j] - lo[j] + this.ptol(j, lo[j]) : up[j] - x[j] + this.ptol(j, up[j])
+        const room = a > 0 ? x[j] - lo[j] + this.ptol(lo[j]) : up[j] - x[j] + this.ptol(up[j])
         const ratio = room / Math.abs(a)
         if (ratio < bound) bound = ratio
       }
