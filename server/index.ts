@@ -6,12 +6,9 @@ import { startMail } from './mail/index'
 import { createApp } from './app'
 import { seedDemo, DEMO_PASSWORD, demoSignIns } from './seed/demo'
 import { seedReference } from './seed/reference'
-import { closeServerLpRunner, registerServerLpRunner } from './engine/lpRunner'
 
 async function main() {
   const config = loadConfig()
-  // Every balance that lets the engine pick its solver runs javascript-lp-solver in a worker bounded in time.
-  await registerServerLpRunner()
   const logger = createLogger(config.logLevel)
   const sequelize = createSequelize(config.databaseUrl)
   await sequelize.authenticate()
@@ -43,7 +40,6 @@ async function main() {
     server.closeAllConnections?.()
     mailer.close()
     await sink?.close()
-    await closeServerLpRunner()
     await sequelize.close()
     process.exit(0)
   }

@@ -8,10 +8,6 @@ import { createAppRouter } from './router/index'
 import { createAppVuetify } from './plugins/vuetify'
 import { setUnauthorizedHandler } from './api/client'
 import { useSessionStore } from './stores/session'
-import { registerBrowserLpRunner } from './engine/lpRunner'
-
-// Balances that let the engine pick its solver run in a Web Worker bounded in time (created on first use).
-registerBrowserLpRunner()
 
 const app = createApp(App)
 const pinia = createPinia()

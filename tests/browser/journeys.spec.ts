@@ -4,7 +4,7 @@ import type { Page } from 'playwright-core'
 import { openBrowser, signInAs, startBrowserServer, type BrowserServer, type TestBrowser } from '../helpers/browser'
 import { DEMO_OPERATIONS } from '../../server/seed/demo'
 import { balanceRation } from '../../shared/engine/nutrition/ration/balance'
-import { BALANCE_ENGINE_OPTIONS, type FeedRef } from '../../shared/adapters/nutrition/problem'
+import type { FeedRef } from '../../shared/adapters/nutrition/problem'
 import { supplementPlan } from '../../shared/adapters/nutrition/plan'
 import { coverageWord } from '../../shared/schemas/nutrition/balances'
 import { fmtNumber, fmtPct, massValue, nutrientDisplay } from '../../shared/schemas/nutrition/format'
@@ -85,7 +85,7 @@ describe('journey 1: a cattle producer checks the cowpea corridor for late-gesta
     const { page } = owner
     const opId = new URL(page.url()).pathname.split('/')[2]
     const b = await apiGet<{ latest: { inputs: { problem: RationProblem; feeds: FeedRef[]; herd: { headCount: number } }; result: BalanceResult } }>(page, `/operations/${opId}/balances/${balanceId}`)
-    const engine = await balanceRation(b.latest.inputs.problem, BALANCE_ENGINE_OPTIONS)
+    const engine = await balanceRation(b.latest.inputs.problem)
     expect(b.latest.result).toEqual(JSON.parse(JSON.stringify(engine)))
     const shown = await bars(page)
     const dmi = engine.intakes.reduce((a, i) => a + i.kgDm, 0)

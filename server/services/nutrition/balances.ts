@@ -13,15 +13,12 @@ import {
   balanceSelectionSchema,
   type BalanceSelectionValues,
 } from '../../../shared/schemas/nutrition/balances'
-import { BALANCE_ENGINE_OPTIONS, buildBalanceProblem, type BalanceFeed, type BuiltProblem, type FieldOffer } from '../../../shared/adapters/nutrition/problem'
+import { buildBalanceProblem, type BalanceFeed, type BuiltProblem, type FieldOffer } from '../../../shared/adapters/nutrition/problem'
 import type { ListQuery } from '../../../shared/schemas/nutrition/common'
 import { fieldFeedsForBalance } from '../grazing/fieldFeeds'
 import { assertVersion, iso, ordering, paging, parseWith, pickSent, type Paged } from './common'
 import { feedsForBalance, type FeedView } from './feeds'
 import { herdValues } from './herds'
-
-/** The options every stored run uses (the same the screen's live preview uses). */
-export const ENGINE_OPTIONS = BALANCE_ENGINE_OPTIONS
 
 export type Assembled = { herd: Herd; built: BuiltProblem; field: { id: number; name: string } | null; dropped: string[] }
 
@@ -111,7 +108,8 @@ function engineInputError(e: unknown): unknown {
 
 export async function solve(built: BuiltProblem): Promise<BalanceResult> {
   try {
-    return await balanceRation(built.problem, ENGINE_OPTIONS)
+    // The engine's default path, the same the Balance screen's live preview takes: certified in-thread solves with shadow prices.
+    return await balanceRation(built.problem)
   } catch (e) {
     throw engineInputError(e)
   }
@@ -128,7 +126,6 @@ function inputsRecord(a: Assembled) {
     feeds: a.built.feeds,
     excluded: a.built.excluded,
     notes: [...a.built.notes, ...a.dropped.map((d) => `${d} was deleted since the last run and is left out.`)],
-    engineOptions: ENGINE_OPTIONS,
   }
 }
 

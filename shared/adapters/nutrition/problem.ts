@@ -28,9 +28,6 @@ export type BalanceFeed = {
 /** What a field offers on a date, as the grazing side computes it: engine feeds with role 'field' and their offered shares. */
 export type FieldOffer = { fieldName?: string; feeds: EngineFeed[]; fieldOffer: { feedId: string; shareOfDm: number }[]; labResultIds?: number[]; notes?: string[] }
 
-/** Both sides solve with HiGHS so a stored run, the screen's live preview and any check give the same numbers; HiGHS also gives shadow prices. */
-export const BALANCE_ENGINE_OPTIONS = { solver: 'highs', shadowPrices: true } as const
-
 /** Peak milk used for a nursing cow group with none entered: 8 kg/d, the NRC 2000 p. 45 example curve (a default to change). */
 export const DEFAULT_PEAK_MILK_KG = 8
 

@@ -73,7 +73,9 @@ export {
   type Nutrient,
 } from './ration/schema'
 export { DEFAULT_LIMITS, feedDensity } from './ration/model'
-export { balanceRation, balanceRations, rationLinearProgram, dietCost, BATCH_CHUNK } from './ration/balance'
-export { registerLpRunner, registeredLpRunner, type LpRunner } from './ration/runner'
-export { checkLpSolution, type LinearProgram, type LpOutcome, type LpRow, type SolverName } from './lp/program'
+export { balanceRation, balanceRations, rationLinearProgram, dietCost } from './ration/balance'
+export { checkLpSolution, type FallbackReason, type LinearProgram, type LpOutcome, type LpRow, type SolverName } from './lp/program'
+export { solveLp, solveLpSync, type LpAnswer, type SolveLpOptions } from './lp/solve'
+export { basisSolution, certifyInfeasible, certifyLp, type Certificate, type PrimalDual } from './lp/certificate'
+export { DenseSimplex, simplex, type LpBasis, type SimplexResult } from './lp/simplex'
 export { configureHighs, loadHighs } from './lp/adapter'

@@ -6,7 +6,6 @@ import { fieldsOf, makeTeam, type Team } from './setup'
 import { aFieldBody } from '../../fixtures/grazing'
 import { balanceRation } from '../../../shared/engine/nutrition/ration/balance'
 import { pearsonSquare } from '../../../shared/engine/nutrition/pearson'
-import { ENGINE_OPTIONS } from '../../../server/services/nutrition/balances'
 import { BalanceVersion } from '../../../server/models/nutrition'
 import type { Feed } from '../../../server/models/nutrition'
 
@@ -38,7 +37,7 @@ describe('POST /api/operations/:id/balances', () => {
     expect(b).toMatchObject({ version: 1, outOfDate: false, herdName: 'Balance cows', date: '2027-01-20' })
     expect(b.latest.createdBy.name).toContain('Test user')
     expect(Date.parse(b.latest.createdAt)).toBeGreaterThan(Date.now() - 60_000)
-    const again = await balanceRation(b.latest.inputs.problem, ENGINE_OPTIONS)
+    const again = await balanceRation(b.latest.inputs.problem)
     expect(b.latest.result).toEqual(JSON.parse(JSON.stringify(again)))
     expect(b.latest.inputs.stage.pregnancyDay).toBe(283 - 49)
   })

@@ -1,30 +1,24 @@
 // Behaviour of balanceRation: status, least cost, ties, shortfalls in words, legume share, warnings, the solver guard.
 import { readFileSync } from 'node:fs'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import {
   balanceRation,
   balanceRations,
   cattleRequirements,
   LB_KG,
-  registerLpRunner,
-  registeredLpRunner,
+  rationLinearProgram,
   sheepRequirements,
-  type LpRunner,
+  solveLp,
+  type LinearProgram,
   type RationProblem,
   type Requirements,
 } from '../../../shared/engine/index'
-import { solveJobsWithJsLp } from '../../../shared/engine/nutrition/lp/adapter'
-import { closeServerLpRunner, registerServerLpRunner, whenServerLpRunnerReady } from '../../../server/engine/lpRunner'
 import { cattleMineral, cowpea, dicalcium, problemOf, rangeCube, sorghumGrain, sorghumStover } from './helpers/feeds'
 import { independentLp, loadIndependentSolvers, solveWithGlpk, verifyDiet } from './helpers/independentLp'
 
-let serverRunner: LpRunner
 beforeAll(async () => {
-  await registerServerLpRunner({ warm: true })
-  serverRunner = registeredLpRunner()!
   await loadIndependentSolvers()
 })
-afterAll(closeServerLpRunner)
 
 const lateGestationCow = cattleRequirements({ class: 'cow', bodyWeightKg: 1200 * LB_KG, matureWeightKg: 1200 * LB_KG, bcs: 5, pregnancyDay: 250, grazing: true })
 const kgOf = (r: Awaited<ReturnType<typeof balanceRation>>, id: string) => r.intakes.find((i) => i.feedId === id)!.kgDm
@@ -44,7 +38,7 @@ describe('balanceRation: a cow in late gestation on a sorghum field', () => {
     expect(r.deficiencies).toEqual([])
     expect(r.intakes.reduce((s, i) => s + i.kgDm, 0)).toBeCloseTo(r.intakeCapacityKg, 6)
     expect(verifyDiet(p, dietOf(p, r))).toEqual([])
-    expect(r.solver).toBe('javascript-lp-solver')
+    expect(r.solver).toBe('engine-simplex')
     // The least-cost diet buys nothing, so it is itself the field-only diet: that LP is not solved again.
     expect(r.solverRuns.find((x) => x.lp === 'field-only')!.impliedByMain).toBe(true)
   })
@@ -62,10 +56,12 @@ describe('balanceRation: a cow in late gestation on a sorghum field', () => {
     expect(r.supply.find((s) => s.nutrient === 'cp')!.pctCovered).toBeGreaterThanOrEqual(100 - 1e-6)
   })
 
-  it('when shadow prices are asked for, then HiGHS answers and each binding need\'s price equals the cost of one more unit of it by finite difference', async () => {
+  it('when balanced by the default call, then every need carries a shadow price from the certified duals, and each binding need\'s price equals the cost of one more unit of it by finite difference', async () => {
     const feeds = [sorghumStover(), rangeCube()]
-    const r = await balanceRation(problemOf(lateGestationCow, feeds), { shadowPrices: true })
-    expect(r.solver).toBe('highs')
+    const r = await balanceRation(problemOf(lateGestationCow, feeds))
+    expect(r.solver).toBe('engine-simplex')
+    expect(r.solverRuns.find((x) => x.lp === 'main')!.certified).toBe(true)
+    for (const s of r.supply) expect(Number.isFinite(s.shadowPrice)).toBe(true)
     const binding = r.supply.filter((s) => (s.shadowPrice ?? 0) > 1e-9)
     expect(binding.length).toBeGreaterThan(0)
     const field: Record<string, keyof Requirements> = { tdn: 'tdnKg', nem: 'nemMcal', neg: 'negMcal', cp: 'cpKg', ca: 'caG', p: 'pG' }
@@ -73,7 +69,7 @@ describe('balanceRation: a cow in late gestation on a sorghum field', () => {
       const d = 1e-4 * s.need
       const key = field[s.nutrient]
       const bumped = withReq(lateGestationCow, { [key]: (lateGestationCow[key] as number) + d })
-      const r2 = await balanceRation(problemOf(bumped, feeds), { shadowPrices: true })
+      const r2 = await balanceRation(problemOf(bumped, feeds))
       expect((r2.costPerHeadDay - r.costPerHeadDay) / d).toBeCloseTo(s.shadowPrice!, 4)
     }
     for (const s of r.supply) if (s.pctCovered > 100 + 1e-6) expect(s.shadowPrice).toBeCloseTo(0, 9)
@@ -157,57 +153,46 @@ describe('warnings where harm is possible, each with its source and the usual ca
   })
 })
 
-describe('the solver guard', () => {
+describe('the solver guard: the in-thread simplex, its certificate and HiGHS behind it', () => {
   const p = problemOf(lateGestationCow, [sorghumStover(), rangeCube()])
-  const withRunner = async (runner: LpRunner | null, f: () => Promise<void>) => {
-    registerLpRunner(runner)
-    try {
-      await f()
-    } finally {
-      registerLpRunner(serverRunner)
-    }
-  }
-  it('when no runner is registered, then HiGHS answers at once and says so', async () =>
-    withRunner(null, async () => {
-      const t = performance.now()
-      const r = await balanceRation(p)
-      expect(performance.now() - t).toBeLessThan(1000)
-      expect(r.solverRuns.map((x) => x.fallbackReason)).toEqual(['no-runner', 'no-runner'])
-      expect(r.solver).toBe('highs')
-    }))
-  it('when the runner times out, then HiGHS re-solves and the result records the timeout', async () =>
-    withRunner({ name: 'late', run: async () => Promise.reject(Object.assign(new Error('late'), { name: 'AbortError' })) }, async () => {
-      const r = await balanceRation(p)
-      expect(r.solverRuns.map((x) => x.fallbackReason)).toEqual(['timeout', 'timeout'])
-      expect(r.warnings.map((w) => w.code)).toContain('solver-fallback')
-    }))
-  it('when the in-process answer breaks a constraint, then the check catches it and HiGHS answers', async () =>
-    withRunner({ name: 'wrong', run: async (jobs) => solveJobsWithJsLp(jobs).map((o) => (o.status === 'optimal' ? { ...o, x: o.x.map(() => 0) } : o)) }, async () => {
-      const r = await balanceRation(p)
-      expect(r.solverRuns.find((x) => x.lp === 'main')!.fallbackReason).toBe('failed-check')
-      expect(r.status).toBe('covered-with-supplement')
-    }))
-  it('when the in-process solver calls a feasible ration infeasible, then HiGHS re-solves it', async () =>
-    withRunner({ name: 'gloomy', run: async (jobs) => jobs.map(() => ({ status: 'infeasible' as const })) }, async () => {
-      const r = await balanceRation(p)
-      expect(r.solverRuns.find((x) => x.lp === 'main')!.fallbackReason).toBe('infeasible-claim')
-      expect(r.status).toBe('covered-with-supplement')
-    }))
+  it('when the simplex runs out of its pivot budget, then HiGHS answers, certified, at the same cost, and the answer says why', async () => {
+    const lp = rationLinearProgram(p)
+    const capped = await solveLp(lp, { maxIterations: 1 })
+    const normal = await solveLp(lp)
+    expect(capped).toMatchObject({ status: 'optimal', solver: 'highs', fallbackReason: 'iteration-limit', certified: true })
+    expect(normal).toMatchObject({ status: 'optimal', solver: 'engine-simplex', certified: true })
+    expect(capped.fallbackReason && normal.status === 'optimal' && capped.status === 'optimal' && Math.abs(capped.objective - normal.objective)).toBeLessThan(1e-9)
+  })
+  it('when an LP is unbounded (no certificate of optimality can exist), then HiGHS is asked and agrees', async () => {
+    const lp: LinearProgram = { colNames: ['a', 'b'], cost: [-1, 0], colLower: [0, 0], colUpper: [Infinity, 1], rows: [{ name: 'r', coefs: [1, -1], lower: -Infinity, upper: Infinity }] }
+    const a = await solveLp(lp)
+    expect(a).toMatchObject({ status: 'unbounded', solver: 'highs', fallbackReason: 'not-certified', certified: false })
+  })
+  it('when HiGHS is asked for, then it answers every LP of the balance, at the same cost and with the same shadow prices as the default call', async () => {
+    const q = problemOf(lateGestationCow, [sorghumGrain(), sorghumStover(), cowpea(), rangeCube({ maxKgDm: 0.6 }), dicalcium()])
+    const byHighs = await balanceRation(q, { solver: 'highs' })
+    const byDefault = await balanceRation(q)
+    expect(byHighs.solverRuns.every((x) => x.impliedByMain || (x.solver === 'highs' && x.fallbackReason === 'requested'))).toBe(true)
+    expect(byDefault.solverRuns.every((x) => x.impliedByMain || (x.solver === 'engine-simplex' && x.certified && !x.fallbackReason))).toBe(true)
+    expect(byDefault.costPerHeadDay).toBeCloseTo(byHighs.costPerHeadDay, 9)
+    expect(byDefault.supply.map((s) => s.shadowPrice)).toEqual(byHighs.supply.map((s) => expect.closeTo(s.shadowPrice!, 7)))
+  })
   it.each(['jslp-hang-1.json', 'jslp-hang-2.json'])(
-    'when javascript-lp-solver 1.0.3 never returns on a saved ration (%s), then the worker is stopped, HiGHS answers within 1 s and the next balance runs normally',
+    'when a saved ration on which javascript-lp-solver 1.0.3 never returned (%s) is balanced, then the in-thread simplex answers every LP, certified, within a few dozen pivots, at the cost glpk.js finds',
     async (file) => {
       const hang = JSON.parse(readFileSync(new URL(`./fixtures/${file}`, import.meta.url), 'utf8')) as RationProblem
-      const t = performance.now()
       const r = await balanceRation(hang)
-      expect(performance.now() - t).toBeLessThan(1000)
-      expect(r.solverRuns.find((x) => x.lp === 'main')!.fallbackReason).toBe('timeout')
-      expect(verifyDiet(hang, dietOf(hang, r))).toEqual([])
-      // The replacement worker starts at once in the background; once it is up, the guarded path answers again.
-      await whenServerLpRunnerReady()
-      const next = await balanceRation(p)
-      expect(next.solver).toBe('javascript-lp-solver')
+      expect(r.solverRuns.every((x) => x.impliedByMain || (x.solver === 'engine-simplex' && x.certified))).toBe(true)
+      const lp = await solveLp(rationLinearProgram(hang))
+      expect(lp.solver).toBe('engine-simplex')
+      expect(lp.iterations).toBeLessThan(60)
+      const g = solveWithGlpk(independentLp(hang))
+      expect(g.feasible).toBe(r.status !== 'short')
+      if (g.feasible) {
+        expect(Math.abs(g.objective - r.costPerHeadDay)).toBeLessThan(1e-7)
+        expect(verifyDiet(hang, dietOf(hang, r))).toEqual([])
+      }
     },
-    10_000,
   )
   it('balanceRations gives the same answers as one call per ration', async () => {
     const problems = [p, problemOf(lateGestationCow, [sorghumGrain(), sorghumStover(), cowpea(), rangeCube()]), problemOf(lateGestationCow, [sorghumStover({ tdnPctDm: 40 })])]

@@ -8,8 +8,9 @@ export interface LinearProgram {
   colUpper: number[]
   rows: LpRow[]
   /**
-   * Lexicographic second objective: after the first optimum c*, minimise this subject also to cost·x ≤ c* + tolerance.
-   * Ties of the first objective are then broken by the second.
+   * Lexicographic second objective: after the first optimum c*, minimise this over the answers optimal for the first (the
+   * engine's simplex: its optimal face; HiGHS: cost·x ≤ c* + `lexicographicTolerance`). Ties of the first objective are then
+   * broken by the second.
    */
   secondary?: number[]
   /**
@@ -22,11 +23,6 @@ export interface LinearProgram {
    * ignores has a positive first-objective cost, the second solve is skipped (see `secondaryAttained`).
    */
   secondaryBindingRow?: number
-  /**
-   * In a batch of jobs: skip this LP (answer `skipped`) when the job just before it was optimal with every one of these columns
-   * at zero — the caller knows the answer then without solving.
-   */
-  skipIfPreviousZero?: number[]
 }
 export interface LpRow {
   name: string
@@ -40,9 +36,15 @@ export type LpOutcome =
   | { status: 'infeasible' }
   | { status: 'unbounded' }
   | { status: 'error'; message: string }
-  | { status: 'skipped' }
 
-export type SolverName = 'javascript-lp-solver' | 'highs'
+/** Which library answered: the engine's own dense simplex in the calling thread, or HiGHS. */
+export type SolverName = 'engine-simplex' | 'highs'
+
+/**
+ * Why HiGHS answered instead of the in-thread simplex: it ran out of its pivot budget, its answer failed the certificate
+ * (optimality, or infeasibility by a Farkas ray), it failed outright, or HiGHS was asked for.
+ */
+export type FallbackReason = 'iteration-limit' | 'not-certified' | 'solver-error' | 'requested'
 
 /** Allowed slack of the first objective when the second breaks ties: 1e-10 relative, with an absolute floor of 1e-10. */
 export function lexicographicTolerance(objective: number): number {

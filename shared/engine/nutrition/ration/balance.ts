@@ -1,10 +1,10 @@
 // The ration balance: least-cost supplement for a group on its field, with the field-alone deficiencies and conflicts in words.
 import { checkLpSolution, dot, type LinearProgram, type LpOutcome, type SolverName } from '../lp/program'
-import { loadHighs, solveWithHighs } from '../lp/adapter'
+import { loadHighs } from '../lp/adapter'
+import { solveLp, solveLpSync, type LpAnswer } from '../lp/solve'
 import { pearsonFractions } from '../pearson'
 import { warningsOfDiet } from '../warnings'
 import type { NutritionWarning } from '../warning'
-import { registeredLpRunner } from './runner'
 import { buildRationLp, feedIntakes, limitText, needSupply, NUTRIENT_UNIT, rationContext, type RationContext, type RationLp } from './model'
 import {
   balanceOptionsSchema,
@@ -17,12 +17,15 @@ import {
 } from './schema'
 
 type FallbackReason = NonNullable<BalanceResult['solverRuns'][number]['fallbackReason']>
-type Answer = { outcome: LpOutcome; solver: SolverName; fallbackReason?: FallbackReason; checkFailed?: boolean; implied?: boolean }
+type Answer = { outcome: LpOutcome; solver: SolverName; fallbackReason?: FallbackReason; checkFailed?: boolean; implied?: boolean; certified?: boolean }
+type SolverChoice = 'auto' | 'highs'
 
 interface Prepared {
   ctx: RationContext
   fieldOnly: RationLp
   main: RationLp
+  /** Columns of the least-cost LP that are bought feeds: when all are zero, the field alone covers every need. */
+  bought: number[]
 }
 
 function prepare(problem: RationProblem): Prepared {
@@ -32,24 +35,16 @@ function prepareParsed(p: ParsedRationProblem): Prepared {
   const ctx = rationContext(p)
   const fieldOnly = buildRationLp(ctx, p.feeds.map((f) => f.role === 'field'), 'shortfall')
   const main = buildRationLp(ctx, p.feeds.map(() => true), 'cost')
-  // Sent after the least-cost LP: when that diet buys nothing, the field alone covers every need and this LP need not run.
-  fieldOnly.lp.skipIfPreviousZero = boughtColumns(main, p)
-  return { ctx, fieldOnly, main }
+  return { ctx, fieldOnly, main, bought: boughtColumns(main, p) }
 }
 
-/** Accepts an in-process answer only if it is optimal and passes every constraint; anything else is re-solved by HiGHS. */
-function judge(lp: LinearProgram, o: LpOutcome | undefined): FallbackReason | null {
-  if (!o) return 'runner-error'
-  if (o.status === 'optimal') return checkLpSolution(lp, o.x).length === 0 ? null : 'failed-check'
-  if (o.status === 'infeasible') return 'infeasible-claim'
-  return 'solver-error'
-}
-
-async function viaHighs(lp: LinearProgram, reason: FallbackReason): Promise<Answer> {
-  await loadHighs()
-  const outcome = solveWithHighs(lp)
-  const checkFailed = outcome.status === 'optimal' && checkLpSolution(lp, outcome.x).length > 0
-  return { outcome, solver: 'highs', fallbackReason: reason, checkFailed }
+/**
+ * An LP answer as the balance keeps it. Only an answer that failed the certificate can still be primally infeasible (HiGHS's,
+ * after the in-thread one failed): that is flagged so the result warns.
+ */
+function answerOf(lp: LinearProgram, a: LpAnswer): Answer {
+  const checkFailed = a.status === 'optimal' && !a.certified && checkLpSolution(lp, a.x).length > 0
+  return { outcome: a, solver: a.solver, certified: a.certified, ...(a.fallbackReason ? { fallbackReason: a.fallbackReason } : {}), ...(checkFailed ? { checkFailed } : {}) }
 }
 
 function boughtColumns(main: RationLp, p: ParsedRationProblem): number[] {
@@ -59,20 +54,17 @@ function boughtColumns(main: RationLp, p: ParsedRationProblem): number[] {
 }
 
 /**
- * Settles the least-cost and field-only answers of one problem (runner outcomes in the order [main, field-only]). When the
- * accepted least-cost diet buys nothing it is itself a field-only diet meeting every need, so the field-only LP is not needed.
+ * Solves the least-cost and the field-only LP of one problem in the calling thread (`solveLp`: certified, HiGHS on doubt). When
+ * the least-cost diet buys nothing it is itself a field-only diet meeting every need, so the field-only LP is not solved.
  */
-async function settle(q: Prepared, fromRunner: (LpOutcome | undefined)[] | null, reason: FallbackReason | null): Promise<[Answer, Answer]> {
-  const mainWhy = fromRunner ? judge(q.main.lp, fromRunner[0]) : (reason ?? 'no-runner')
-  const mainAns: Answer = mainWhy === null ? { outcome: fromRunner![0]!, solver: 'javascript-lp-solver' } : await viaHighs(q.main.lp, mainWhy)
+async function settle(q: Prepared, solver: SolverChoice): Promise<[Answer, Answer]> {
+  const mainAns = answerOf(q.main.lp, await solveLp(q.main.lp, { solver }))
   const m = mainAns.outcome
-  if (m.status === 'optimal' && !mainAns.checkFailed && q.fieldOnly.lp.skipIfPreviousZero!.every((j) => m.x[j] <= 1e-8)) {
+  if (m.status === 'optimal' && !mainAns.checkFailed && q.bought.every((j) => m.x[j] <= 1e-8)) {
     const zero = new Array<number>(q.fieldOnly.lp.colNames.length).fill(0)
     return [{ outcome: { status: 'optimal', x: zero, objective: 0 }, solver: mainAns.solver, implied: true }, mainAns]
   }
-  const f = fromRunner?.[1]
-  const fieldWhy = !fromRunner ? (reason ?? 'no-runner') : f?.status === 'skipped' ? (mainWhy ?? 'runner-error') : judge(q.fieldOnly.lp, f)
-  const fieldAns: Answer = fieldWhy === null ? { outcome: f!, solver: 'javascript-lp-solver' } : await viaHighs(q.fieldOnly.lp, fieldWhy)
+  const fieldAns = answerOf(q.fieldOnly.lp, await solveLp(q.fieldOnly.lp, { solver }))
   return [fieldAns, mainAns]
 }
 
@@ -157,7 +149,7 @@ function explainHardConflict(r: RationLp, ctx: RationContext): string[] {
     rows: lp.rows.map((row, i) => (r.rowLimit[i] && !active.rows[i] ? { ...row, lower: -Infinity, upper: Infinity } : row)),
     colLower: lp.colLower.map((v, j) => (r.colLimit[j] && !active.cols[j] ? 0 : v)),
   })
-  const feasible = () => solveWithHighs(withRelaxed()).status === 'optimal'
+  const feasible = () => solveLpSync(withRelaxed()).status === 'optimal'
   for (let i = 0; i < active.rows.length; i++) {
     if (!active.rows[i]) continue
     active.rows[i] = false
@@ -212,10 +204,10 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
   const p = ctx.p
   const nFeeds = p.feeds.length
   const runs: BalanceResult['solverRuns'] = [
-    { lp: 'field-only', solver: fieldAns.solver, ...(fieldAns.fallbackReason ? { fallbackReason: fieldAns.fallbackReason } : {}), ...(fieldAns.implied ? { impliedByMain: true } : {}) },
-    { lp: 'main', solver: mainAns.solver, ...(mainAns.fallbackReason ? { fallbackReason: mainAns.fallbackReason } : {}) },
+    { lp: 'field-only', solver: fieldAns.solver, ...runFlags(fieldAns) },
+    { lp: 'main', solver: mainAns.solver, ...runFlags(mainAns) },
   ]
-  if (bestAns) runs.push({ lp: 'best-achievable', solver: bestAns.solver, ...(bestAns.fallbackReason ? { fallbackReason: bestAns.fallbackReason } : {}) })
+  if (bestAns) runs.push({ lp: 'best-achievable', solver: bestAns.solver, ...runFlags(bestAns) })
 
   const warnings: NutritionWarning[] = []
   for (const a of [fieldAns, mainAns, bestAns]) {
@@ -241,7 +233,7 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
   if (mainAns.outcome.status === 'optimal') {
     used = main
     x = mainAns.outcome.x
-    if (mainAns.solver === 'highs') duals = mainAns.outcome.rowDual
+    duals = mainAns.outcome.rowDual
     const { kgDm } = feedIntakes(main, x, nFeeds)
     status = p.feeds.some((f, i) => f.role !== 'field' && kgDm[i] > 0) ? 'covered-with-supplement' : 'covered'
   } else if (bestAns && bestLp && bestAns.outcome.status === 'optimal') {
@@ -275,7 +267,7 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
       need: n.need,
       supplied,
       pctCovered: (100 * supplied) / n.need,
-      // Wherever HiGHS answered the least-cost LP, its row duals are the cost of one more unit of each need.
+      // The least-cost LP's row duals (certified, from the solver's basis) are the cost of one more unit of each need.
       ...(duals && row !== undefined ? { shadowPrice: round(duals[row]) } : {}),
     }
   })
@@ -318,91 +310,54 @@ function assemble(prep: Prepared, fieldAns: Answer, mainAns: Answer, bestAns: An
   }
 }
 
-async function finish(prep: Prepared, fieldAns: Answer, mainAns: Answer): Promise<BalanceResult> {
+function runFlags(a: Answer) {
+  return {
+    ...(a.fallbackReason ? { fallbackReason: a.fallbackReason } : {}),
+    ...(a.implied ? { impliedByMain: true } : {}),
+    ...(a.certified !== undefined ? { certified: a.certified } : {}),
+  }
+}
+
+async function finish(prep: Prepared, fieldAns: Answer, mainAns: Answer, solver: SolverChoice): Promise<BalanceResult> {
   let bestAns: Answer | null = null
   let bestLp: RationLp | null = null
   if (mainAns.outcome.status !== 'optimal') {
-    // No diet meets every need: the closest one over all feeds, cheapest among equals, by HiGHS for its duals.
+    // No diet meets every need: the closest one over all feeds, cheapest among equals; its duals name the limits that hold it up.
     bestLp = buildRationLp(prep.ctx, prep.ctx.p.feeds.map(() => true), 'shortfall', true)
-    await loadHighs()
-    const outcome = solveWithHighs(bestLp.lp)
-    bestAns = { outcome, solver: 'highs', checkFailed: outcome.status === 'optimal' && checkLpSolution(bestLp.lp, outcome.x).length > 0 }
+    bestAns = answerOf(bestLp.lp, await solveLp(bestLp.lp, { solver }))
   }
+  // Limits that collide outright are named by re-solving relaxed LPs synchronously; HiGHS is loaded first in case one needs it.
+  if (fieldAns.outcome.status !== 'optimal' || (bestAns && bestAns.outcome.status !== 'optimal')) await loadHighs()
   return assemble(prep, fieldAns, mainAns, bestAns, bestLp)
 }
+
+const DEFAULT_OPTIONS = balanceOptionsSchema.parse({})
 
 /**
  * Balances one ration: meets energy (TDN, and NEm/NEg for cattle), CP, Ca and P at least at need, within intake capacity, the
  * Ca:P ratio, grain, urea and Cu limits, what the field offers and each feed's availability, at least supplement cost, ties going
  * to the diet with the most field feed. The LP is the classic least-cost ration formulation (Waugh, "The minimum-cost dairy feed",
- * J. Farm Econ. 33:299, 1951 — from memory); NEm and NEg are met from separate
- * portions of each feed as in NRC, Nutrient Requirements of Beef Cattle, 7th rev. ed. (1996/2000). javascript-lp-solver runs in the
- * registered runner with a time limit; every answer is checked against every constraint, and on a timeout, a failed check or an
- * "infeasible" claim HiGHS re-solves it. With no runner, or with `shadowPrices`, HiGHS answers (its duals become `shadowPrice`).
+ * J. Farm Econ. 33:299, 1951 — from memory); NEm and NEg are met from separate portions of each feed as in NRC, Nutrient
+ * Requirements of Beef Cattle, 7th rev. ed. (1996/2000). Each LP is solved in the calling thread by the engine's dense simplex and
+ * its answer certified optimal by LP duality (or infeasible by a Farkas ray) from the solver's basis; only an answer that fails the
+ * certificate, or a simplex out of its pivot budget, is re-solved by HiGHS. The certified row duals are the shadow prices.
  */
 export async function balanceRation(problem: RationProblem, options?: BalanceOptions): Promise<BalanceResult> {
   const prep = prepare(problem)
-  const opt = balanceOptionsSchema.parse(options ?? {})
-  const runner = opt.solver === 'auto' ? registeredLpRunner() : null
-  if (opt.shadowPrices || opt.solver === 'highs') {
-    const [fieldAns, mainAns] = await settle(prep, null, 'requested')
-    return finish(prep, fieldAns, mainAns)
-  }
-  let fromRunner: (LpOutcome | undefined)[] | null = null
-  let reason: FallbackReason | null = runner ? null : 'no-runner'
-  if (runner) {
-    try {
-      fromRunner = await runner.run([prep.main.lp, prep.fieldOnly.lp], opt.timeoutMs)
-    } catch (e) {
-      reason = isTimeout(e) ? 'timeout' : 'runner-error'
-    }
-  }
-  const [fieldAns, mainAns] = await settle(prep, fromRunner, reason)
-  return finish(prep, fieldAns, mainAns)
+  const opt = options === undefined ? DEFAULT_OPTIONS : balanceOptionsSchema.parse(options)
+  const [fieldAns, mainAns] = await settle(prep, opt.solver)
+  return finish(prep, fieldAns, mainAns, opt.solver)
 }
 
-function isTimeout(e: unknown): boolean {
-  return typeof e === 'object' && e !== null && ((e as { name?: string }).name === 'AbortError' || (e as { code?: string }).code === 'TIMEOUT')
-}
-
-/** Problems sent to the runner per round trip by `balanceRations`. */
-export const BATCH_CHUNK = 64
-
-/**
- * Balances many rations, sharing the runner's worker: problems go in chunks of 64 per round trip, each chunk under the same time
- * limit, and while the worker solves one chunk this thread builds the next and assembles the last. A chunk that times out or
- * fails falls back to HiGHS problem by problem. Every problem is validated before any is solved. Same method and sources as
- * `balanceRation`.
- */
+/** Balances many rations one after another in the calling thread; every problem is validated before any is solved. Same method and sources as `balanceRation`. */
 export async function balanceRations(problems: readonly RationProblem[], options?: BalanceOptions): Promise<BalanceResult[]> {
   const opt = balanceOptionsSchema.parse(options ?? {})
   const parsed = problems.map((p) => rationProblemSchema.parse(p))
-  const runner = opt.solver === 'auto' && !opt.shadowPrices ? registeredLpRunner() : null
-  const noRunnerReason: FallbackReason = opt.shadowPrices || opt.solver === 'highs' ? 'requested' : 'no-runner'
-  const chunks: ParsedRationProblem[][] = []
-  for (let s = 0; s < parsed.length; s += BATCH_CHUNK) chunks.push(parsed.slice(s, s + BATCH_CHUNK))
-  const send = (chunk: Prepared[]) => (runner ? runner.run(chunk.flatMap((q) => [q.main.lp, q.fieldOnly.lp]), opt.timeoutMs, { background: true }) : null)
   const out: BalanceResult[] = []
-  let current = chunks.length ? chunks[0].map(prepareParsed) : []
-  let pending = send(current)
-  for (let c = 0; c < chunks.length; c++) {
-    const upcoming = c + 1 < chunks.length ? chunks[c + 1].map(prepareParsed) : []
-    let fromRunner: (LpOutcome | undefined)[] | null = null
-    let reason: FallbackReason | null = runner ? null : noRunnerReason
-    if (pending) {
-      try {
-        fromRunner = await pending
-      } catch (e) {
-        reason = isTimeout(e) ? 'timeout' : 'runner-error'
-      }
-    }
-    pending = upcoming.length ? send(upcoming) : null
-    for (let k = 0; k < current.length; k++) {
-      const q = current[k]
-      const [fieldAns, mainAns] = await settle(q, fromRunner ? [fromRunner[2 * k], fromRunner[2 * k + 1]] : null, reason)
-      out.push(await finish(q, fieldAns, mainAns))
-    }
-    current = upcoming
+  for (const p of parsed) {
+    const q = prepareParsed(p)
+    const [fieldAns, mainAns] = await settle(q, opt.solver)
+    out.push(await finish(q, fieldAns, mainAns, opt.solver))
   }
   return out
 }

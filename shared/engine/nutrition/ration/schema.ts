@@ -90,11 +90,10 @@ export type ParsedRationProblem = z.infer<typeof rationProblemSchema>
 
 export const balanceOptionsSchema = z
   .object({
-    /** Time allowed to the in-process solver before HiGHS takes over; with that fallback every call ends well inside 1 s. */
-    timeoutMs: z.number().finite().min(1).max(600).default(250),
-    /** Solve the main LP with HiGHS to report shadow prices (slower: a fresh HiGHS model per call). */
-    shadowPrices: z.boolean().default(false),
-    /** 'auto': the registered runner first, HiGHS on any doubt; 'highs': HiGHS only. */
+    /**
+     * 'auto' (the default, what the screens and the API use): the engine's simplex in the calling thread, each answer certified,
+     * HiGHS only on doubt. 'highs': HiGHS only, for comparisons.
+     */
     solver: z.enum(['auto', 'highs']).default('auto'),
   })
   .strict()
@@ -104,6 +103,10 @@ export const nutrientNames = ['tdn', 'nem', 'neg', 'cp', 'ca', 'p'] as const
 export type Nutrient = (typeof nutrientNames)[number]
 
 const num = z.number().finite()
+/** 'engine-simplex' or 'highs'; 'javascript-lp-solver' appears only in results stored before the in-thread simplex. */
+const solverNameSchema = z.enum(['engine-simplex', 'highs', 'javascript-lp-solver'])
+/** Why HiGHS answered (see `FallbackReason` in lp/program.ts); the last four appear only in results stored by the older worker guard. */
+const fallbackReasonSchema = z.enum(['iteration-limit', 'not-certified', 'solver-error', 'requested', 'no-runner', 'timeout', 'runner-error', 'failed-check', 'infeasible-claim'])
 export const balanceResultSchema = z.object({
   status: z.enum(['covered', 'covered-with-supplement', 'short']),
   intakes: z.array(z.object({ feedId: z.string(), kgDm: num, kgAsFed: num, kgDmForGain: num.optional() })),
@@ -118,12 +121,14 @@ export const balanceResultSchema = z.object({
   minLegumeShareForProtein: num.nullable(),
   conflicts: z.array(z.string()),
   warnings: z.array(warningSchema),
-  solver: z.enum(['javascript-lp-solver', 'highs']),
+  solver: solverNameSchema,
   solverRuns: z.array(
     z.object({
       lp: z.enum(['main', 'field-only', 'best-achievable']),
-      solver: z.enum(['javascript-lp-solver', 'highs']),
-      fallbackReason: z.enum(['no-runner', 'timeout', 'runner-error', 'failed-check', 'infeasible-claim', 'solver-error', 'requested']).optional(),
+      solver: solverNameSchema,
+      fallbackReason: fallbackReasonSchema.optional(),
+      /** The answer passed the certificate: optimal by LP duality, or infeasible by a Farkas ray. */
+      certified: z.boolean().optional(),
       /** Not solved: the least-cost diet bought nothing, so it is itself a field-only diet that meets every need. */
       impliedByMain: z.boolean().optional(),
     }),
